@@ -1,7 +1,7 @@
 import { defineConfig } from "vitest/config";
 import path from "node:path";
 
-const alias = { "@": path.resolve(__dirname) };
+const alias = { "@": path.resolve(import.meta.dirname) };
 
 export default defineConfig({
   resolve: { alias },

@@ -1,0 +1,121 @@
+import "server-only";
+import { and, desc, eq, isNotNull, isNull, sql } from "drizzle-orm";
+import { db } from "@/db/client";
+import { facilities } from "@/db/schema";
+import { AppError } from "@/lib/errors";
+import type { FacilityDto, SiteConditions } from "./schema";
+
+type Row = typeof facilities.$inferSelect;
+
+export function toDto(r: Row): FacilityDto {
+  return {
+    id: r.id,
+    name: r.name,
+    site: {
+      designDryBulbC: r.designDryBulbC,
+      coincidentWetBulbC: r.coincidentWetBulbC,
+      designRhPct: r.designRhPct,
+      groundTempC: r.groundTempC,
+      elevationM: r.elevationM,
+    },
+    version: r.version,
+    archived: r.archivedAt !== null,
+    hasModel: r.model !== null,
+    createdAt: r.createdAt.toISOString(),
+    updatedAt: r.updatedAt.toISOString(),
+  };
+}
+
+function siteColumns(s: SiteConditions) {
+  return {
+    designDryBulbC: s.designDryBulbC,
+    coincidentWetBulbC: s.coincidentWetBulbC ?? null,
+    designRhPct: s.designRhPct ?? null,
+    groundTempC: s.groundTempC,
+    elevationM: s.elevationM,
+  };
+}
+
+export async function listFacilities(workspaceId: string, archived: boolean): Promise<FacilityDto[]> {
+  const rows = await db
+    .select()
+    .from(facilities)
+    .where(and(eq(facilities.workspaceId, workspaceId), archived ? isNotNull(facilities.archivedAt) : isNull(facilities.archivedAt)))
+    .orderBy(desc(facilities.updatedAt));
+  return rows.map(toDto);
+}
+
+export async function getFacilityRow(workspaceId: string, id: string): Promise<Row> {
+  const [row] = await db
+    .select()
+    .from(facilities)
+    .where(and(eq(facilities.workspaceId, workspaceId), eq(facilities.id, id)))
+    .limit(1);
+  if (!row) throw new AppError("not_found", "Facility not found in this workspace.");
+  return row;
+}
+
+export async function createFacility(
+  workspaceId: string,
+  userId: string,
+  input: { name: string; site: SiteConditions; model?: Record<string, unknown> | null },
+): Promise<FacilityDto> {
+  const [row] = await db
+    .insert(facilities)
+    .values({ workspaceId, name: input.name, createdBy: userId, model: input.model ?? null, ...siteColumns(input.site) })
+    .returning();
+  return toDto(row);
+}
+
+/** Updates name and/or site; with baseVersion, a stale edit is refused (409) and changes nothing. */
+export async function updateFacility(
+  workspaceId: string,
+  id: string,
+  patch: { name?: string; site?: SiteConditions; baseVersion?: number },
+): Promise<FacilityDto> {
+  const current = await getFacilityRow(workspaceId, id);
+  if (patch.baseVersion !== undefined && patch.baseVersion !== current.version) {
+    throw new AppError("conflict", `The facility changed since you opened it (version ${current.version}, yours ${patch.baseVersion}). Reload and apply your change again.`, undefined, undefined, { current: toDto(current) });
+  }
+  const [row] = await db
+    .update(facilities)
+    .set({
+      ...(patch.name !== undefined ? { name: patch.name } : {}),
+      ...(patch.site ? siteColumns(patch.site) : {}),
+      version: sql`${facilities.version} + 1`,
+      updatedAt: new Date(),
+    })
+    .where(and(eq(facilities.workspaceId, workspaceId), eq(facilities.id, id), eq(facilities.version, current.version)))
+    .returning();
+  if (!row) throw new AppError("conflict", "The facility changed while saving. Reload and apply your change again.");
+  return toDto(row);
+}
+
+export async function duplicateFacility(workspaceId: string, userId: string, id: string, name?: string): Promise<FacilityDto> {
+  const src = await getFacilityRow(workspaceId, id);
+  const [row] = await db
+    .insert(facilities)
+    .values({
+      workspaceId,
+      name: name ?? `${src.name} (copy)`.slice(0, 120),
+      designDryBulbC: src.designDryBulbC,
+      coincidentWetBulbC: src.coincidentWetBulbC,
+      designRhPct: src.designRhPct,
+      groundTempC: src.groundTempC,
+      elevationM: src.elevationM,
+      model: src.model,
+      createdBy: userId,
+    })
+    .returning();
+  return toDto(row);
+}
+
+export async function setArchived(workspaceId: string, id: string, archived: boolean): Promise<FacilityDto> {
+  await getFacilityRow(workspaceId, id);
+  const [row] = await db
+    .update(facilities)
+    .set({ archivedAt: archived ? new Date() : null, updatedAt: new Date(), version: sql`${facilities.version} + 1` })
+    .where(and(eq(facilities.workspaceId, workspaceId), eq(facilities.id, id)))
+    .returning();
+  return toDto(row);
+}

@@ -1,0 +1,79 @@
+import { z } from "zod";
+
+const num = (field: string, min: number, max: number, unit: string) =>
+  z
+    .number({ error: `${field} must be a number (${min} to ${max} ${unit})` })
+    .refine(Number.isFinite, `${field} must be a finite number`)
+    .refine((v) => v >= min && v <= max, `${field} must be between ${min} and ${max} ${unit}`);
+
+/**
+ * Site design conditions (SI). Ranges cover inhabited sites: design dry bulb −50…+55 °C,
+ * ground −30…+40 °C, elevation −450 m (Dead Sea shore) … 5000 m.
+ */
+export const siteConditionsSchema = z
+  .object({
+    designDryBulbC: num("Design dry bulb", -50, 55, "°C"),
+    coincidentWetBulbC: num("Coincident wet bulb", -50, 45, "°C").nullish(),
+    designRhPct: num("Design relative humidity", 1, 100, "%").nullish(),
+    groundTempC: num("Ground temperature", -30, 40, "°C"),
+    elevationM: num("Elevation", -450, 5000, "m"),
+  })
+  .superRefine((s, ctx) => {
+    const hasWb = s.coincidentWetBulbC !== null && s.coincidentWetBulbC !== undefined;
+    const hasRh = s.designRhPct !== null && s.designRhPct !== undefined;
+    if (!hasWb && !hasRh) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["coincidentWetBulbC"],
+        message: "Give the coincident wet bulb (°C) or the design relative humidity (%)",
+      });
+    }
+    if (hasWb && hasRh) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["designRhPct"],
+        message: "Give either the coincident wet bulb or the relative humidity, not both",
+      });
+    }
+    if (hasWb && (s.coincidentWetBulbC as number) > s.designDryBulbC) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["coincidentWetBulbC"],
+        message: `Coincident wet bulb must not exceed the design dry bulb (${s.designDryBulbC} °C)`,
+      });
+    }
+  });
+export type SiteConditions = z.infer<typeof siteConditionsSchema>;
+
+export const facilityNameSchema = z
+  .string({ error: "Name is required" })
+  .trim()
+  .min(1, "Name is required (1 to 120 characters)")
+  .max(120, "Name must be at most 120 characters");
+
+export const createFacilitySchema = z.object({ name: facilityNameSchema, site: siteConditionsSchema });
+export const updateFacilitySchema = z
+  .object({
+    name: facilityNameSchema.optional(),
+    site: siteConditionsSchema.optional(),
+    /** The version the edit was based on; a stale one is refused with 409. */
+    baseVersion: z.number().int().min(1).optional(),
+  })
+  .refine((v) => v.name !== undefined || v.site !== undefined, { message: "Nothing to change: give name or site" });
+export const duplicateFacilitySchema = z.object({ name: facilityNameSchema.optional() });
+export const archiveFacilitySchema = z.object({ archived: z.boolean({ error: "archived must be true or false" }) });
+
+export const facilityParams = z.object({ ws: z.string().min(1), id: z.string().uuid("Facility id must be a UUID") });
+export const wsParams = z.object({ ws: z.string().min(1) });
+export const listFacilitiesQuery = z.object({ archived: z.enum(["0", "1"]).default("0") });
+
+export interface FacilityDto {
+  id: string;
+  name: string;
+  site: SiteConditions;
+  version: number;
+  archived: boolean;
+  hasModel: boolean;
+  createdAt: string;
+  updatedAt: string;
+}

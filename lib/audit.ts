@@ -1,0 +1,42 @@
+import "server-only";
+import { db } from "@/db/client";
+import { auditLog } from "@/db/schema";
+
+export type AuditAction =
+  | "auth.signin"
+  | "auth.signin_failed"
+  | "auth.signout"
+  | "auth.password_reset"
+  | "member.invited"
+  | "member.joined"
+  | "member.role_changed"
+  | "member.removed"
+  | "facility.created"
+  | "facility.updated"
+  | "facility.duplicated"
+  | "facility.archived"
+  | "facility.restored"
+  | "model.edited"
+  | "scenario.applied"
+  | "export.created";
+
+/** Appends one audit record (the table refuses updates and deletes). */
+export async function audit(entry: {
+  workspaceId?: string | null;
+  actorId?: string | null;
+  actorEmail?: string | null;
+  action: AuditAction;
+  targetType?: string;
+  targetId?: string;
+  detail?: Record<string, unknown>;
+}): Promise<void> {
+  await db.insert(auditLog).values({
+    workspaceId: entry.workspaceId ?? null,
+    actorId: entry.actorId ?? null,
+    actorEmail: entry.actorEmail ?? null,
+    action: entry.action,
+    targetType: entry.targetType,
+    targetId: entry.targetId,
+    detail: entry.detail ?? {},
+  });
+}

@@ -1,0 +1,121 @@
+import "server-only";
+import NextAuth, { CredentialsSignin } from "next-auth";
+import Credentials from "next-auth/providers/credentials";
+import { and, eq, gt, isNull } from "drizzle-orm";
+import bcrypt from "bcryptjs";
+import { z } from "zod";
+import { db } from "@/db/client";
+import { emailTokens, sessions, users } from "@/db/schema";
+import { env } from "./env";
+import { hashToken } from "./tokens";
+import { clientKeyOf, recordSignInAttempt, signInAllowed } from "./rate-limit";
+import { audit } from "./audit";
+
+export const SESSION_DAYS = 7;
+
+class RateLimited extends CredentialsSignin {
+  code = "rate_limited";
+}
+class BadCredentials extends CredentialsSignin {
+  code = "bad_credentials";
+}
+class BadLink extends CredentialsSignin {
+  code = "bad_link";
+}
+
+const passwordInput = z.object({ email: z.string().trim().toLowerCase().email(), password: z.string().min(1).max(200) });
+const linkInput = z.object({ token: z.string().min(20).max(200) });
+
+async function openSession(userId: string, request: Request): Promise<string> {
+  const [row] = await db
+    .insert(sessions)
+    .values({
+      userId,
+      expiresAt: new Date(Date.now() + SESSION_DAYS * 86_400_000),
+      userAgent: request.headers.get("user-agent")?.slice(0, 300) ?? null,
+    })
+    .returning({ id: sessions.id });
+  return row.id;
+}
+
+/** Consumes a single-use e-mail token of a purpose; returns its user id or null. */
+export async function consumeEmailToken(token: string, purpose: "signin_link" | "password_reset"): Promise<string | null> {
+  const [row] = await db
+    .update(emailTokens)
+    .set({ usedAt: new Date() })
+    .where(
+      and(
+        eq(emailTokens.tokenHash, hashToken(token)),
+        eq(emailTokens.purpose, purpose),
+        isNull(emailTokens.usedAt),
+        gt(emailTokens.expiresAt, new Date()),
+      ),
+    )
+    .returning({ userId: emailTokens.userId });
+  return row?.userId ?? null;
+}
+
+export const { handlers, auth, signIn, signOut } = NextAuth({
+  secret: env.AUTH_SECRET,
+  trustHost: true,
+  session: { strategy: "jwt", maxAge: SESSION_DAYS * 86_400 },
+  pages: { signIn: "/signin" },
+  providers: [
+    Credentials({
+      id: "password",
+      name: "E-mail and password",
+      credentials: { email: {}, password: {} },
+      async authorize(raw, request) {
+        const parsed = passwordInput.safeParse(raw);
+        if (!parsed.success) throw new BadCredentials();
+        const { email, password } = parsed.data;
+        const client = clientKeyOf(request.headers);
+        if (!(await signInAllowed(email, client))) {
+          await audit({ action: "auth.signin_failed", actorEmail: email, detail: { reason: "rate_limited" } });
+          throw new RateLimited();
+        }
+        const [user] = await db.select().from(users).where(eq(users.email, email)).limit(1);
+        const ok = !!user?.passwordHash && (await bcrypt.compare(password, user.passwordHash));
+        await recordSignInAttempt(email, client, ok);
+        if (!ok || !user) {
+          await audit({ action: "auth.signin_failed", actorEmail: email, detail: { reason: "bad_credentials" } });
+          throw new BadCredentials();
+        }
+        const sid = await openSession(user.id, request);
+        await audit({ action: "auth.signin", actorId: user.id, actorEmail: user.email, detail: { method: "password" } });
+        return { id: user.id, email: user.email, name: user.name, sid };
+      },
+    }),
+    Credentials({
+      id: "link",
+      name: "Sign-in link",
+      credentials: { token: {} },
+      async authorize(raw, request) {
+        const parsed = linkInput.safeParse(raw);
+        if (!parsed.success) throw new BadLink();
+        const userId = await consumeEmailToken(parsed.data.token, "signin_link");
+        if (!userId) throw new BadLink();
+        const [user] = await db.select().from(users).where(eq(users.id, userId)).limit(1);
+        if (!user) throw new BadLink();
+        const sid = await openSession(user.id, request);
+        await audit({ action: "auth.signin", actorId: user.id, actorEmail: user.email, detail: { method: "link" } });
+        return { id: user.id, email: user.email, name: user.name, sid };
+      },
+    }),
+  ],
+  callbacks: {
+    jwt({ token, user }) {
+      if (user && "sid" in user) token.sid = (user as { sid: string }).sid;
+      return token;
+    },
+    session({ session, token }) {
+      return { ...session, sid: typeof token.sid === "string" ? token.sid : undefined };
+    },
+  },
+  events: {
+    async signOut(message) {
+      const sid = "token" in message ? message.token?.sid : undefined;
+      if (typeof sid === "string") await db.delete(sessions).where(eq(sessions.id, sid));
+    },
+  },
+});

@@ -1,0 +1,36 @@
+import { z } from "zod";
+
+/**
+ * The one place that reads process.env. Everything else imports `env` from here, so a missing
+ * or malformed setting fails at start with a message naming it.
+ */
+const schema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  DATABASE_URL: z.string().url().default("postgres://postgres@127.0.0.1:54329/rimeplan"),
+  AUTH_SECRET: z.string().min(16, "AUTH_SECRET must be at least 16 characters").optional(),
+  APP_URL: z.string().url().default("http://localhost:3000"),
+  SMTP_HOST: z.string().default("127.0.0.1"),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  MAIL_FROM: z.string().default("Rimeplan <no-reply@rimeplan.invalid>"),
+  /** Folder the fake SMTP server writes caught mail into; enables the dev mail page. */
+  MAIL_CATCHER_DIR: z.string().optional(),
+  /** "1" shows the caught-mail page (/dev/mail); never set it on a real deployment. */
+  RIMEPLAN_DEV_MAIL: z.enum(["0", "1"]).default("0"),
+  LOG_LEVEL: z.enum(["debug", "info", "warn", "error", "silent"]).default("info"),
+  /** Sign-in attempts allowed per e-mail address (and, ×4, per client address) per window. */
+  SIGNIN_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(1000).default(5),
+  SIGNIN_WINDOW_MINUTES: z.coerce.number().int().min(1).max(1440).default(15),
+});
+
+export type Env = z.infer<typeof schema>;
+
+function load(): Env {
+  const parsed = schema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`).join("\n");
+    throw new Error(`Invalid environment:\n${lines}`);
+  }
+  return parsed.data;
+}
+
+export const env: Env = load();

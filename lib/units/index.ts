@@ -1,0 +1,108 @@
+import { create, unitDependencies } from "mathjs";
+
+/**
+ * The one units module: values are stored and computed in SI; screens and exports format
+ * through here in the user's system. Conversions go through mathjs units (only the unit
+ * factory is bundled). Traps handled: temperature differences convert without the offset
+ * (K → Δ°F via °R), pressures say absolute or gauge, refrigeration and electrical power are
+ * labelled apart.
+ */
+const { unit } = create({ unitDependencies });
+
+export type UnitSystem = "SI" | "IP";
+export type PowerKind = "refrigeration" | "electrical" | "heat";
+export type PressureRef = "abs" | "gauge";
+
+/** Standard atmosphere, Pa (ISO 2533), used to label gauge pressures. */
+export const STANDARD_ATMOSPHERE_PA = 101_325;
+
+function conv(value: number, from: string, to: string): number {
+  return unit(value, from).toNumber(to);
+}
+
+export const convert = {
+  tempToDisplay: (c: number, s: UnitSystem) => (s === "SI" ? c : conv(c, "degC", "degF")),
+  tempFromDisplay: (v: number, s: UnitSystem) => (s === "SI" ? v : conv(v, "degF", "degC")),
+  /** A temperature difference: no offset. */
+  tempDiffToDisplay: (k: number, s: UnitSystem) => (s === "SI" ? k : conv(k, "K", "degR")),
+  tempDiffFromDisplay: (v: number, s: UnitSystem) => (s === "SI" ? v : conv(v, "degR", "K")),
+  powerToDisplay: (w: number, s: UnitSystem, kind: PowerKind = "refrigeration") =>
+    s === "SI" ? w / 1000 : kind === "electrical" ? w / 1000 : conv(w, "W", "BTU/h"),
+  powerFromDisplay: (v: number, s: UnitSystem, kind: PowerKind = "refrigeration") =>
+    s === "SI" || kind === "electrical" ? v * 1000 : conv(v, "BTU/h", "W"),
+  /** Tons of refrigeration (12 000 Btu/h). */
+  powerToTR: (w: number) => conv(w, "W", "BTU/h") / 12_000,
+  pressureToDisplay: (paAbs: number, s: UnitSystem, ref: PressureRef = "abs") => {
+    const pa = ref === "abs" ? paAbs : paAbs - STANDARD_ATMOSPHERE_PA;
+    return s === "SI" ? pa / 1e5 : conv(pa, "Pa", "psi");
+  },
+  pressureFromDisplay: (v: number, s: UnitSystem, ref: PressureRef = "abs") => {
+    const pa = s === "SI" ? v * 1e5 : conv(v, "psi", "Pa");
+    return ref === "abs" ? pa : pa + STANDARD_ATMOSPHERE_PA;
+  },
+  lengthToDisplay: (m: number, s: UnitSystem) => (s === "SI" ? m : conv(m, "m", "ft")),
+  lengthFromDisplay: (v: number, s: UnitSystem) => (s === "SI" ? v : conv(v, "ft", "m")),
+  areaToDisplay: (m2: number, s: UnitSystem) => (s === "SI" ? m2 : conv(m2, "m^2", "ft^2")),
+  massToDisplay: (kg: number, s: UnitSystem) => (s === "SI" ? kg : conv(kg, "kg", "lb")),
+  massFromDisplay: (v: number, s: UnitSystem) => (s === "SI" ? v : conv(v, "lb", "kg")),
+  energyToDisplay: (kwh: number, s: UnitSystem) => (s === "SI" ? kwh : conv(kwh, "kWh", "BTU")),
+};
+
+export const UNIT_LABELS: Record<UnitSystem, Record<string, string>> = {
+  SI: {
+    temp: "°C",
+    tempDiff: "K",
+    power_refrigeration: "kW(r)",
+    power_electrical: "kW(e)",
+    power_heat: "kW",
+    pressure_abs: "bar(a)",
+    pressure_gauge: "bar(g)",
+    length: "m",
+    area: "m²",
+    mass: "kg",
+    energy: "kWh",
+  },
+  IP: {
+    temp: "°F",
+    tempDiff: "Δ°F",
+    power_refrigeration: "Btu/h",
+    power_electrical: "kW(e)",
+    power_heat: "Btu/h",
+    pressure_abs: "psia",
+    pressure_gauge: "psig",
+    length: "ft",
+    area: "ft²",
+    mass: "lb",
+    energy: "Btu",
+  },
+};
+
+const MINUS = "\u2212";
+function num(v: number, digits: number): string {
+  if (!Number.isFinite(v)) return "—";
+  const s = v.toLocaleString("en-GB", { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  return s.startsWith("-") ? MINUS + s.slice(1) : s;
+}
+
+/** kW to 0.1 below 1000, else 3 significant figures (UI.md precision rules). */
+function powerDigits(v: number): number {
+  const a = Math.abs(v);
+  return a >= 1000 ? 0 : a >= 100 ? 1 : a >= 10 ? 1 : 2;
+}
+
+export const fmt = {
+  temp: (c: number, s: UnitSystem) => `${num(convert.tempToDisplay(c, s), 1)} ${UNIT_LABELS[s].temp}`,
+  tempDiff: (k: number, s: UnitSystem) => `${num(convert.tempDiffToDisplay(k, s), 1)} ${UNIT_LABELS[s].tempDiff}`,
+  power: (w: number, s: UnitSystem, kind: PowerKind = "refrigeration") => {
+    const v = convert.powerToDisplay(w, s, kind);
+    return `${num(v, s === "IP" && kind !== "electrical" ? 0 : powerDigits(v))} ${UNIT_LABELS[s][`power_${kind}`]}`;
+  },
+  pressure: (pa: number, s: UnitSystem, ref: PressureRef = "abs") =>
+    `${num(convert.pressureToDisplay(pa, s, ref), s === "SI" ? 2 : 1)} ${UNIT_LABELS[s][`pressure_${ref}`]}`,
+  length: (m: number, s: UnitSystem) => `${num(convert.lengthToDisplay(m, s), 2)} ${UNIT_LABELS[s].length}`,
+  area: (m2: number, s: UnitSystem) => `${num(convert.areaToDisplay(m2, s), 1)} ${UNIT_LABELS[s].area}`,
+  mass: (kg: number, s: UnitSystem) => `${num(convert.massToDisplay(kg, s), 0)} ${UNIT_LABELS[s].mass}`,
+  cop: (v: number) => num(v, 2),
+  percent: (fraction: number) => `${num(fraction * 100, 1)} %`,
+  number: num,
+};
