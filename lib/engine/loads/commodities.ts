@@ -1,0 +1,199 @@
+/**
+ * Commodity library: what the product, respiration and batch-freezing loads need per
+ * commodity, with the source of every value. Specific heats and latent heat are derived from
+ * the composition by one published model (Chen 1985, with Schwartzberg's bound water), the
+ * same model the product load uses, so the library and the ledger never disagree.
+ */
+
+/** Latent heat of fusion of water at 0 °C, kJ/kg (ASHRAE Handbook—Refrigeration, thermal properties of foods). */
+export const LATENT_HEAT_WATER_KJKG = 333.6;
+
+export type RespirationData =
+  /** Becker & Fricke fit `W/kg = (10.7·f/3600)·(9T/5 + 32)^g`, T in °C. */
+  | { kind: "fg"; f: number; g: number }
+  /** Tabulated heat of respiration, [tempC, mW/kg] pairs in rising temperature. */
+  | { kind: "table"; points: ReadonlyArray<readonly [number, number]> };
+
+export interface Commodity {
+  id: string;
+  name: string;
+  group: "fruit" | "vegetable" | "meat" | "poultry" | "fish" | "dairy" | "frozen" | "prepared";
+  /** Mass fraction of water, x_wo. */
+  waterFraction: number;
+  /** Mass fraction of protein, x_p (bound water x_b = 0.4·x_p, Schwartzberg 1976). */
+  proteinFraction: number;
+  initialFreezingPointC: number;
+  /** Specific heat above the initial freezing point, kJ/(kg·K) (Chen 1985). */
+  cpAboveKJkgK: number;
+  /** Specific heat of the frozen solids-and-ice matrix below freezing, excluding latent release, kJ/(kg·K) (Chen 1985). */
+  cpBelowKJkgK: number;
+  /** Latent heat if all freezable water froze, L0·(x_wo − x_b), kJ/kg. */
+  latentHeatKJkg: number;
+  /** Product density (for freezing time), kg/m³. */
+  densityKgM3?: number;
+  /** Thermal conductivity of the frozen product (for freezing time), W/(m·K). */
+  frozenConductivityWmK?: number;
+  /** Fresh produce only. */
+  respiration?: RespirationData;
+  /** Where each value comes from, keyed by field name. */
+  sources: Record<string, string>;
+}
+
+const SRC_COMPOSITION = "ASHRAE Handbook—Refrigeration, thermal properties of foods table (composition after USDA), from memory";
+const SRC_FREEZING = "ASHRAE Handbook—Refrigeration, thermal properties of foods table, initial freezing point, from memory";
+const SRC_CHEN_ABOVE = "Chen (1985): c_u = 4.19 − 2.30·x_s − 0.628·x_s³ kJ/(kg·K), x_s = 1 − x_wo";
+const SRC_CHEN_BELOW = "Chen (1985): frozen matrix 1.55 + 1.26·x_s kJ/(kg·K); latent release added from the ice fraction";
+const SRC_LATENT = "L0·(x_wo − x_b), L0 = 333.6 kJ/kg, x_b = 0.4·x_p (Schwartzberg 1976, as in the ASHRAE Handbook)";
+const SRC_FG = "Becker & Fricke respiration coefficients f, g, as tabulated in the ASHRAE Handbook—Refrigeration, from memory";
+const SRC_PHYS = "typical value, from memory of the ASHRAE thermal properties of foods data (check for your product)";
+
+/** Chen (1985) unfrozen specific heat from the solids fraction, kJ/(kg·K). */
+export function chenUnfrozenCpKJkgK(solidsFraction: number): number {
+  return 4.19 - 2.3 * solidsFraction - 0.628 * solidsFraction ** 3;
+}
+
+/** Chen (1985) frozen-matrix specific heat (no latent part), kJ/(kg·K). */
+export function chenFrozenMatrixCpKJkgK(solidsFraction: number): number {
+  return 1.55 + 1.26 * solidsFraction;
+}
+
+interface Raw {
+  id: string;
+  name: string;
+  group: Commodity["group"];
+  waterPct: number;
+  proteinPct: number;
+  tfC: number;
+  densityKgM3?: number;
+  frozenConductivityWmK?: number;
+  respiration?: RespirationData;
+  respirationSource?: string;
+  compositionSource?: string;
+}
+
+const fg = (f: number, g: number): RespirationData => ({ kind: "fg", f, g });
+
+const RAW: Raw[] = [
+  // Fruit
+  { id: "apples", name: "Apples", group: "fruit", waterPct: 83.9, proteinPct: 0.3, tfC: -1.1, respiration: fg(5.6871e-4, 2.5977) },
+  { id: "pears", name: "Pears", group: "fruit", waterPct: 83.7, proteinPct: 0.4, tfC: -1.6, respiration: fg(6.3614e-5, 3.2037) },
+  { id: "strawberries", name: "Strawberries", group: "fruit", waterPct: 91.6, proteinPct: 0.7, tfC: -0.8, respiration: fg(3.6683e-4, 3.033) },
+  { id: "grapes", name: "Grapes, table", group: "fruit", waterPct: 81.3, proteinPct: 0.7, tfC: -2.1, respiration: fg(7.056e-5, 3.033) },
+  { id: "oranges", name: "Oranges", group: "fruit", waterPct: 86.8, proteinPct: 0.9, tfC: -0.8, respiration: fg(2.805e-4, 2.684) },
+  { id: "lemons", name: "Lemons", group: "fruit", waterPct: 89.0, proteinPct: 1.1, tfC: -1.4, respiration: fg(0.011192, 1.774) },
+  { id: "limes", name: "Limes", group: "fruit", waterPct: 88.3, proteinPct: 0.7, tfC: -1.6, respiration: fg(2.9834e-8, 4.7329) },
+  { id: "grapefruit", name: "Grapefruit", group: "fruit", waterPct: 90.9, proteinPct: 0.6, tfC: -1.1, respiration: fg(0.0035828, 1.9982) },
+  { id: "peaches", name: "Peaches", group: "fruit", waterPct: 88.9, proteinPct: 0.9, tfC: -0.9, respiration: fg(1.2996e-5, 3.6417) },
+  { id: "plums", name: "Plums", group: "fruit", waterPct: 87.2, proteinPct: 0.7, tfC: -0.8, respiration: fg(8.608e-5, 2.972) },
+  { id: "blueberries", name: "Blueberries", group: "fruit", waterPct: 84.2, proteinPct: 0.7, tfC: -1.6, respiration: fg(7.252e-5, 3.2584) },
+  {
+    id: "bananas",
+    name: "Bananas (green, for ripening)",
+    group: "fruit",
+    waterPct: 74.3,
+    proteinPct: 1.1,
+    tfC: -0.8,
+    // Converted from CO2 production (10.7 J per mg CO2) of green fruit; a ripening charge
+    // respires several times more (see the room's ripening multiplier).
+    respiration: { kind: "table", points: [[13, 60], [15, 75], [20, 100]] },
+    respirationSource:
+      "heat of respiration of green bananas, from memory of USDA Agriculture Handbook 66 / ASHRAE tables; check against supplier data",
+  },
+  // Vegetables
+  { id: "potatoes", name: "Potatoes, mature", group: "vegetable", waterPct: 79.0, proteinPct: 2.0, tfC: -0.6, respiration: fg(0.01709, 1.769) },
+  { id: "carrots", name: "Carrots, topped", group: "vegetable", waterPct: 87.8, proteinPct: 0.9, tfC: -1.4, respiration: fg(0.050018, 1.7926) },
+  { id: "cabbage", name: "Cabbage", group: "vegetable", waterPct: 92.2, proteinPct: 1.3, tfC: -0.9, respiration: fg(6.0803e-4, 2.6183) },
+  { id: "onions", name: "Onions, dry", group: "vegetable", waterPct: 89.7, proteinPct: 1.1, tfC: -0.9, respiration: fg(3.668e-4, 2.538) },
+  { id: "tomatoes", name: "Tomatoes, mature green", group: "vegetable", waterPct: 93.8, proteinPct: 0.9, tfC: -0.5, respiration: fg(2.0074e-4, 2.835) },
+  { id: "green-peppers", name: "Green peppers", group: "vegetable", waterPct: 92.2, proteinPct: 0.9, tfC: -0.7, respiration: fg(3.5104e-4, 2.7414) },
+  { id: "snap-beans", name: "Snap beans", group: "vegetable", waterPct: 90.3, proteinPct: 1.8, tfC: -0.7, respiration: fg(0.0032828, 2.5077) },
+  { id: "brussels-sprouts", name: "Brussels sprouts", group: "vegetable", waterPct: 86.0, proteinPct: 3.4, tfC: -0.8, respiration: fg(0.0027238, 2.5728) },
+  { id: "rutabagas", name: "Rutabagas", group: "vegetable", waterPct: 89.7, proteinPct: 1.1, tfC: -1.1, respiration: fg(1.6524e-4, 2.9039) },
+  { id: "lima-beans", name: "Lima beans", group: "vegetable", waterPct: 70.2, proteinPct: 6.8, tfC: -0.6, respiration: fg(9.1051e-4, 2.848) },
+  { id: "green-peas", name: "Green peas (for freezing)", group: "vegetable", waterPct: 78.9, proteinPct: 5.4, tfC: -0.6, densityKgM3: 1000, frozenConductivityWmK: 1.2 },
+  // Meat and poultry
+  { id: "beef-lean", name: "Beef, lean cuts", group: "meat", waterPct: 73.0, proteinPct: 22.0, tfC: -1.7, densityKgM3: 1050, frozenConductivityWmK: 1.35 },
+  { id: "beef-carcass", name: "Beef, carcass quarters", group: "meat", waterPct: 62.0, proteinPct: 18.0, tfC: -1.7, densityKgM3: 1050, frozenConductivityWmK: 1.3 },
+  { id: "pork-lean", name: "Pork, lean cuts", group: "meat", waterPct: 72.0, proteinPct: 21.0, tfC: -2.2, densityKgM3: 1050, frozenConductivityWmK: 1.3 },
+  { id: "lamb", name: "Lamb", group: "meat", waterPct: 64.0, proteinPct: 17.0, tfC: -1.9, densityKgM3: 1050, frozenConductivityWmK: 1.3 },
+  { id: "chicken", name: "Chicken, broiler, whole", group: "poultry", waterPct: 66.0, proteinPct: 18.6, tfC: -2.8, densityKgM3: 1050, frozenConductivityWmK: 1.4 },
+  { id: "turkey", name: "Turkey, whole", group: "poultry", waterPct: 70.4, proteinPct: 20.4, tfC: -2.8, densityKgM3: 1050, frozenConductivityWmK: 1.4 },
+  // Fish
+  { id: "cod", name: "Cod, fillets", group: "fish", waterPct: 81.2, proteinPct: 17.8, tfC: -2.2, densityKgM3: 1050, frozenConductivityWmK: 1.6 },
+  { id: "salmon", name: "Salmon, Atlantic", group: "fish", waterPct: 68.5, proteinPct: 19.8, tfC: -2.2, densityKgM3: 1050, frozenConductivityWmK: 1.4 },
+  { id: "shrimp", name: "Shrimp", group: "fish", waterPct: 75.9, proteinPct: 20.3, tfC: -2.2, densityKgM3: 1050, frozenConductivityWmK: 1.5 },
+  // Dairy and eggs
+  { id: "milk-whole", name: "Milk, whole", group: "dairy", waterPct: 87.7, proteinPct: 3.3, tfC: -0.6 },
+  { id: "cheese-cheddar", name: "Cheese, cheddar", group: "dairy", waterPct: 36.8, proteinPct: 24.9, tfC: -12.9 },
+  { id: "eggs-shell", name: "Eggs, whole in shell", group: "dairy", waterPct: 75.8, proteinPct: 12.6, tfC: -0.6 },
+  // Frozen goods
+  {
+    id: "ice-cream",
+    name: "Ice cream, vanilla",
+    group: "frozen",
+    waterPct: 61.0,
+    proteinPct: 3.5,
+    tfC: -5.6,
+    densityKgM3: 600,
+    frozenConductivityWmK: 0.9,
+  },
+  {
+    id: "ready-meals",
+    name: "Frozen ready meals (representative)",
+    group: "prepared",
+    waterPct: 75.0,
+    proteinPct: 8.0,
+    tfC: -2.0,
+    densityKgM3: 1000,
+    frozenConductivityWmK: 1.2,
+    compositionSource:
+      "representative composition of a mixed prepared meal — a Rimeplan assumption, not a measured product; enter your product's own data",
+  },
+];
+
+function build(raw: Raw): Commodity {
+  const xw = raw.waterPct / 100;
+  const xp = raw.proteinPct / 100;
+  const xs = 1 - xw;
+  const xb = 0.4 * xp;
+  const composition = raw.compositionSource ?? SRC_COMPOSITION;
+  const sources: Record<string, string> = {
+    waterFraction: composition,
+    proteinFraction: composition,
+    initialFreezingPointC: raw.compositionSource ?? SRC_FREEZING,
+    cpAboveKJkgK: SRC_CHEN_ABOVE,
+    cpBelowKJkgK: SRC_CHEN_BELOW,
+    latentHeatKJkg: SRC_LATENT,
+  };
+  if (raw.densityKgM3 !== undefined) sources.densityKgM3 = SRC_PHYS;
+  if (raw.frozenConductivityWmK !== undefined) sources.frozenConductivityWmK = SRC_PHYS;
+  if (raw.respiration) sources.respiration = raw.respirationSource ?? SRC_FG;
+  return {
+    id: raw.id,
+    name: raw.name,
+    group: raw.group,
+    waterFraction: xw,
+    proteinFraction: xp,
+    initialFreezingPointC: raw.tfC,
+    cpAboveKJkgK: chenUnfrozenCpKJkgK(xs),
+    cpBelowKJkgK: chenFrozenMatrixCpKJkgK(xs),
+    latentHeatKJkg: LATENT_HEAT_WATER_KJKG * Math.max(0, xw - xb),
+    densityKgM3: raw.densityKgM3,
+    frozenConductivityWmK: raw.frozenConductivityWmK,
+    respiration: raw.respiration,
+    sources,
+  };
+}
+
+/** The built-in commodities, by id. */
+export const COMMODITIES: ReadonlyMap<string, Commodity> = new Map(RAW.map((r) => [r.id, build(r)]));
+
+/** Looks a commodity up by id; undefined when it is not in the library. */
+export function getCommodity(id: string): Commodity | undefined {
+  return COMMODITIES.get(id);
+}
+
+/** Every built-in commodity, in library order. */
+export function listCommodities(): Commodity[] {
+  return [...COMMODITIES.values()];
+}

@@ -1,0 +1,869 @@
+import { getCommodity, type Commodity } from "./commodities";
+import { LoadInputError, fail, pathToField } from "./errors";
+import { airSurfaceCoefficientWm2K, phamFreezingTimeS, plankFreezingTimeS } from "./freezing";
+import {
+  DOCK_SEAL_EFFECTIVENESS,
+  PROTECTION_EFFECTIVENESS,
+  defaultFlowFactor,
+  doorwayOpenTimeFactor,
+  gosneyOlamaFullyOpen,
+  splitAirExchange,
+} from "./infiltration";
+import { PACKAGING_CP_KJKGK, packagingHeatKJ, productHeatSplit } from "./product";
+import { airFromRH, airFromWetBulb, relativeHumidityPct, sitePressurePa, type AirState } from "./psychro";
+import { respirationWPerKg } from "./respiration";
+import {
+  ledgerInputSchema,
+  type DoorInput,
+  type LedgerInput,
+  type LedgerInputRaw,
+  type LedgerOptions,
+  type PackagingInput,
+  type RoomInput,
+} from "./schema";
+import { INSIDE_FILM_M2KW, defaultOutsideFilm, solarAllowanceK, surfaceAreaM2, transmissionW, uValue } from "./transmission";
+import type { LoadComponent, LoadComponentKind, LoadTrace } from "./types";
+
+export const ENGINE_VERSION = "loads-1.0.0";
+
+const HANDBOOK = "ASHRAE Handbook—Refrigeration, refrigerated-facility loads chapter";
+
+/** Site psychrometrics every room shares. */
+export interface SiteContext {
+  pressurePa: number;
+  outdoor: AirState;
+  designDryBulbC: number;
+  groundTempC: number;
+  heatedSlabTempC: number;
+  hemisphere: "north" | "south";
+}
+
+/** What one room's ledger needs from the rest of the facility. */
+export interface LedgerContext {
+  input: LedgerInput;
+  site: SiteContext;
+  options: LedgerOptions;
+  /** Room air (set point and RH at site pressure), by room id. */
+  roomAir: ReadonlyMap<string, AirState>;
+  /** Position of each room in `input.rooms`, for field paths in errors. */
+  roomIndex: ReadonlyMap<string, number>;
+  /** Doors touching each room, with their index in `input.doors`. */
+  doorsByRoom: ReadonlyMap<string, ReadonlyArray<{ door: DoorInput; index: number }>>;
+}
+
+export interface RoomLoadResult {
+  roomId: string;
+  roomName: string;
+  components: LoadComponent[];
+  totalEnergyKWhPerDay: number;
+  /** 24-h average of the ledger, W. */
+  averageLoadW: number;
+  safetyFactor: number;
+  runHoursPerDay: number;
+  /** 24-h energy × (1 + SF) / run hours, W. */
+  requiredCapacityW: number;
+  sensibleW: number;
+  latentW: number;
+  /** Sensible heat ratio of the 24-h average (1 when there is no latent load). */
+  sensibleHeatRatio: number;
+  /** Physical load in each hour of the design day (00:00 … 23:00), W. */
+  hourly: number[];
+  peakHourW: number;
+  peakHour: number;
+  /** Peak hour × (1 + SF), W. */
+  requiredPeakCapacityW: number;
+  /** The larger of requiredCapacityW and requiredPeakCapacityW, W. */
+  designCapacityW: number;
+}
+
+export interface LedgerTotals {
+  totalEnergyKWhPerDay: number;
+  averageLoadW: number;
+  requiredCapacityW: number;
+  sensibleW: number;
+  latentW: number;
+  /** Sum of the rooms' hourly profiles, W. */
+  hourly: number[];
+  peakHourW: number;
+  peakHour: number;
+  /** Coincident peak: the largest hourly Σ room load × (1 + SF_room), W. */
+  requiredPeakCapacityW: number;
+}
+
+export interface LedgerResult {
+  rooms: RoomLoadResult[];
+  totals: LedgerTotals;
+  options: LedgerOptions & { statements: string[] };
+  site: { pressurePa: number; outdoorHumRatio: number; outdoorEnthalpyJkg: number; outdoorDensityKgM3: number; outdoorRHPct: number };
+  engineVersion: string;
+}
+
+/**
+ * Validates a facility model against {@link ledgerInputSchema}; throws a
+ * {@link LoadInputError} listing every issue with its field path.
+ */
+export function parseLedgerInput(raw: LedgerInputRaw | unknown): LedgerInput {
+  const r = ledgerInputSchema.safeParse(raw);
+  if (!r.success) {
+    throw new LoadInputError(r.error.issues.map((i) => ({ field: pathToField(i.path), message: i.message })));
+  }
+  return r.data;
+}
+
+/**
+ * Validates the model and prepares what every room shares: site pressure from elevation
+ * (standard atmosphere), the outdoor and room moist-air states (psychrolib), door lookup.
+ */
+export function buildLedgerContext(raw: LedgerInputRaw | unknown): LedgerContext {
+  return contextFromParsed(parseLedgerInput(raw));
+}
+
+/** As {@link buildLedgerContext} for an input that is already parsed. */
+export function contextFromParsed(input: LedgerInput): LedgerContext {
+  const { site } = input;
+  const pressurePa = sitePressurePa(site.elevationM);
+  const outdoor =
+    site.coincidentWetBulbC !== undefined
+      ? airFromWetBulb(site.designDryBulbC, site.coincidentWetBulbC, pressurePa, "site.coincidentWetBulbC")
+      : airFromRH(site.designDryBulbC, site.designRH as number, pressurePa, "site.designRH");
+  const roomAir = new Map<string, AirState>();
+  const roomIndex = new Map<string, number>();
+  const doorsByRoom = new Map<string, { door: DoorInput; index: number }[]>();
+  input.rooms.forEach((r, i) => {
+    roomIndex.set(r.id, i);
+    roomAir.set(r.id, airFromRH(r.setPointC, r.rhPct, pressurePa, `rooms.${i}.rhPct`));
+    doorsByRoom.set(r.id, []);
+  });
+  input.doors.forEach((door, index) => {
+    for (const side of door.sides) doorsByRoom.get(side)?.push({ door, index });
+  });
+  return {
+    input,
+    options: input.options,
+    site: {
+      pressurePa,
+      outdoor,
+      designDryBulbC: site.designDryBulbC,
+      groundTempC: site.groundTempC,
+      heatedSlabTempC: site.heatedSlabTempC,
+      hemisphere: site.hemisphere,
+    },
+    roomAir,
+    roomIndex,
+    doorsByRoom,
+  };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Hourly distribution helpers (all energies in Wh)
+
+/** Adds `energyWh` spread at a constant rate over `durationH` hours from `startH`, wrapping the day. */
+function spreadPeriodic(hourly: number[], energyWh: number, startH: number, durationH: number): void {
+  if (energyWh === 0) return;
+  if (durationH >= 24 && Number.isInteger(startH)) {
+    // A steady-periodic day: anything spread over a day or more averages out evenly.
+    const each = energyWh / 24;
+    for (let h = 0; h < 24; h++) hourly[h] += each;
+    return;
+  }
+  const rate = energyWh / durationH;
+  let t = startH;
+  const end = startH + durationH;
+  while (t < end - 1e-12) {
+    const hourStart = Math.floor(t);
+    const next = Math.min(hourStart + 1, end);
+    hourly[((hourStart % 24) + 24) % 24] += rate * (next - t);
+    t = next;
+  }
+}
+
+/** A load running `hoursPerDay` from `startHour`, or spread evenly when no start is given. */
+function spreadScheduled(hourly: number[], energyWh: number, hoursPerDay: number, startHour: number | undefined): void {
+  if (startHour === undefined || hoursPerDay >= 24) spreadPeriodic(hourly, energyWh, 0, 24);
+  else if (hoursPerDay > 0) spreadPeriodic(hourly, energyWh, startHour, hoursPerDay);
+}
+
+function component(
+  kind: LoadComponentKind,
+  label: string,
+  powerW: number,
+  latentW: number,
+  trace: LoadTrace,
+  sourceId?: string,
+): LoadComponent {
+  const c: LoadComponent = {
+    kind,
+    label,
+    powerW,
+    energyKWhPerDay: (powerW * 24) / 1000,
+    sensibleW: powerW - latentW,
+    latentW,
+    trace,
+  };
+  if (sourceId !== undefined) c.sourceId = sourceId;
+  return c;
+}
+
+function requireFinite(value: number, field: string, what: string): void {
+  if (!Number.isFinite(value) || value < 0) fail(field, `${what} must be a finite number ≥ 0 (got ${value})`);
+}
+
+function commodityOrFail(id: string, field: string): Commodity {
+  const c = getCommodity(id);
+  if (!c) fail(field, `unknown commodity "${id}"`);
+  return c;
+}
+
+function packagingMassKg(p: PackagingInput, productKg: number): number {
+  if (p.massKgPerDay !== undefined) return p.massKgPerDay;
+  return (p.massFractionOfProduct ?? 0) * productKg;
+}
+
+const round = (x: number, digits = 4) => Number(x.toPrecision(digits));
+
+// ---------------------------------------------------------------------------------------------
+
+/**
+ * One room's heat ledger by the handbook method (ASHRAE Handbook—Refrigeration, refrigerated-
+ * facility loads): transmission per surface with solar allowance, Gosney–Olama door
+ * infiltration, ventilation, product pull-down (Chen enthalpy), packaging, respiration,
+ * batch freezing (Pham / Plank), people `272 − 6·t` W, lights, machinery, forklifts, battery
+ * charging, heaters, evaporator fans, defrost. Each component is a 24-h average on the stated
+ * basis; `requiredCapacityW = Σ energy × (1 + SF) / run hours`. The hourly profile is the
+ * physical load through the design day. Cheap enough to call once per room in a plant loop.
+ */
+export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadResult {
+  const idx = ctx.roomIndex.get(room.id);
+  const at = idx === undefined ? `rooms[${room.id}]` : `rooms.${idx}`;
+  const opts = ctx.options;
+  const ignoreColder = opts.colderNeighbour === "ignore";
+  const air = ctx.roomAir.get(room.id) ?? airFromRH(room.setPointC, room.rhPct, ctx.site.pressurePa, `${at}.rhPct`);
+  const tRoom = room.setPointC;
+  const hourly = new Array<number>(24).fill(0);
+  const components: LoadComponent[] = [];
+  const floorAreaM2 = room.lengthM * room.widthM;
+  const volumeM3 = floorAreaM2 * room.heightM;
+
+  // Transmission ---------------------------------------------------------------------------
+  room.surfaces.forEach((s, j) => {
+    const field = `${at}.surfaces.${j}`;
+    const areaM2 = surfaceAreaM2(s, room, field);
+    const rsi = s.insideFilmM2KW ?? INSIDE_FILM_M2KW;
+    const rse = s.outsideFilmM2KW ?? defaultOutsideFilm(s);
+    const u = uValue(s.layers, rsi, rse, s.uValueWm2K);
+    let otherC: number;
+    let otherLabel: string;
+    if (typeof s.otherSide === "object") {
+      const neighbour = ctx.roomAir.get(s.otherSide.roomId);
+      if (!neighbour) fail(`${field}.otherSide.roomId`, `no room with id "${s.otherSide.roomId}"`);
+      otherC = neighbour.tempC;
+      otherLabel = `room ${s.otherSide.roomId}`;
+    } else if (s.otherSide === "outdoors") {
+      otherC = ctx.site.designDryBulbC;
+      otherLabel = "outdoors";
+    } else if (s.otherSide === "ground") {
+      otherC = ctx.site.groundTempC;
+      otherLabel = "ground";
+    } else {
+      otherC = ctx.site.heatedSlabTempC;
+      otherLabel = "heated slab";
+    }
+    if (s.otherSideTempC !== undefined) otherC = s.otherSideTempC;
+    const solarK = solarAllowanceK(s, ctx.site.hemisphere);
+    const tOutC = otherC + solarK;
+    const qW = transmissionW(u.uValueWm2K, areaM2, tOutC, tRoom);
+    const ignored = qW < 0 && ignoreColder;
+    const powerW = ignored ? 0 : qW;
+    const label = s.label ?? `${s.kind}${s.orientation ? " " + s.orientation : ""} to ${otherLabel}`;
+    components.push(
+      component(
+        "transmission",
+        label,
+        powerW,
+        0,
+        {
+          method: "Transmission q = U·A·ΔT with solar allowance",
+          source: `${HANDBOOK}; U = 1/(R_si + ΣL/λ + R_se), ASHRAE Handbook—Fundamentals; sun allowance table (from memory)`,
+          inputs: {
+            areaM2: round(areaM2),
+            uValueWm2K: round(u.uValueWm2K),
+            uMethod: u.method,
+            insideFilmM2KW: s.uValueWm2K === undefined ? rsi : "in U",
+            outsideFilmM2KW: s.uValueWm2K === undefined ? rse : "in U",
+            otherSideTempC: otherC,
+            solarAllowanceK: solarK,
+            roomTempC: tRoom,
+            computedW: round(qW),
+            colderSide: ignored ? "heat to a colder side ignored (option colderNeighbour = ignore)" : "counted",
+          },
+          formula: "q = U·A·(T_other + solar − T_room)",
+        },
+        s.id,
+      ),
+    );
+    spreadPeriodic(hourly, powerW * 24, 0, 24);
+  });
+
+  // Door infiltration -------------------------------------------------------------------------
+  for (const { door, index } of ctx.doorsByRoom.get(room.id) ?? []) {
+    const field = `doors.${index}`;
+    const otherId = door.sides[0] === room.id ? door.sides[1] : door.sides[0];
+    const warm = otherId === "outdoors" ? ctx.site.outdoor : ctx.roomAir.get(otherId);
+    if (!warm) fail(`${field}.sides`, `no room with id "${otherId}"`);
+    // The colder room of the pair carries the exchange; the warmer side's small gain of cold air is not credited.
+    if (!(warm.tempC > tRoom)) continue;
+    const open = gosneyOlamaFullyOpen(door.widthM, door.heightM, warm, air);
+    const dT = warm.tempC - tRoom;
+    const df = door.flowFactor ?? defaultFlowFactor(dT);
+    let e = door.protectionEffectiveness ?? PROTECTION_EFFECTIVENESS[door.protection];
+    let dockNote = "no dock";
+    if (door.dock) {
+      const eSeal = door.dock.sealEffectiveness ?? DOCK_SEAL_EFFECTIVENESS[door.dock.seal];
+      // Docked openings see the seal; the others see the door's own protection.
+      e = door.dock.dockedShare * Math.max(eSeal, e) + (1 - door.dock.dockedShare) * e;
+      dockNote = `${door.dock.seal}, ${Math.round(door.dock.dockedShare * 100)} % docked, seal E ${eSeal}`;
+    }
+    const heldOpenMinPerHour = door.minutesHeldOpenPerDay / 24;
+    const theta = door.openCloseSecondsPerPassage;
+    let dtSum = 0;
+    for (let h = 0; h < 24; h++) {
+      const passages = door.passagesByHour ? door.passagesByHour[h] : (door.passagesPerDay ?? 0) / 24;
+      const dtH = doorwayOpenTimeFactor(passages, theta, heldOpenMinPerHour, 1);
+      if (dtH > 1 + 1e-9) {
+        fail(
+          door.passagesByHour ? `${field}.passagesByHour.${h}` : `${field}.passagesPerDay`,
+          `the door would stand open ${(dtH * 60).toFixed(0)} min in hour ${h} (at most 60): fewer passages or a shorter open-close time`,
+        );
+      }
+      dtSum += dtH;
+      hourly[h] += open.qtW * dtH * df * (1 - e);
+    }
+    const dt = dtSum / 24;
+    const factor = dt * df * (1 - e);
+    const powerW = open.qtW * factor;
+    const split = splitAirExchange(open.dryAirKgS * factor, warm, air);
+    components.push(
+      component(
+        "infiltration",
+        `door ${door.name ?? door.id} from ${otherId}`,
+        powerW,
+        split.latentW,
+        {
+          method: "Gosney–Olama door infiltration",
+          source: `Gosney & Olama (1975) as given in the ${HANDBOOK}; moist air by psychrolib (ASHRAE Fundamentals) at site pressure`,
+          inputs: {
+            doorAreaM2: round(door.widthM * door.heightM),
+            doorHeightM: door.heightM,
+            warmSide: otherId,
+            warmTempC: warm.tempC,
+            warmEnthalpyKJkg: round(warm.enthalpyJkg / 1000),
+            warmDensityKgM3: round(warm.densityKgM3),
+            roomEnthalpyKJkg: round(air.enthalpyJkg / 1000),
+            roomDensityKgM3: round(air.densityKgM3),
+            densityFactorFm: round(open.densityFactor),
+            fullyOpenQtW: round(open.qtW),
+            openTimeFactorDt: round(dt),
+            flowFactorDf: df,
+            protection: door.protection,
+            effectivenessE: round(e),
+            dock: dockNote,
+            passagesPerDay: door.passagesByHour ? door.passagesByHour.reduce((a, b) => a + b, 0) : (door.passagesPerDay ?? 0),
+            openCloseSeconds: theta,
+            minutesHeldOpenPerDay: door.minutesHeldOpenPerDay,
+          },
+          formula:
+            "q = q_t·D_t·D_f·(1−E); q_t = 0.221·A·(h_i−h_r)·ρ_r·(1−ρ_i/ρ_r)^0.5·(g·H)^0.5·F_m; F_m = (2/(1+(ρ_r/ρ_i)^(1/3)))^1.5; D_t = (P·θ_p + 60·θ_o)/(3600·θ_d)",
+        },
+        door.id,
+      ),
+    );
+  }
+
+  // Ventilation / fresh air ---------------------------------------------------------------
+  if (room.ventilation) {
+    const v = room.ventilation;
+    const flowM3PerH = v.flowM3PerH ?? (v.airChangesPerHour as number) * volumeM3;
+    const out = ctx.site.outdoor;
+    const dryAirKgS = ((flowM3PerH / 3600) * out.densityKgM3) / (1 + out.humRatio);
+    const runningW = dryAirKgS * (out.enthalpyJkg - air.enthalpyJkg);
+    const ignored = runningW < 0 && ignoreColder;
+    const share = v.hoursPerDay / 24;
+    const powerW = ignored ? 0 : runningW * share;
+    const split = splitAirExchange(dryAirKgS * share, out, air);
+    const latentW = ignored ? 0 : split.latentW;
+    components.push(
+      component("ventilation", "fresh air", powerW, latentW, {
+        method: "Fresh-air load from the moist-air enthalpy difference",
+        source: `${HANDBOOK}; moist air by psychrolib (ASHRAE Fundamentals)`,
+        inputs: {
+          flowM3PerH: round(flowM3PerH),
+          airChangesPerHour: v.airChangesPerHour ?? "—",
+          hoursPerDay: v.hoursPerDay,
+          outdoorEnthalpyKJkg: round(out.enthalpyJkg / 1000),
+          roomEnthalpyKJkg: round(air.enthalpyJkg / 1000),
+          dryAirKgS: round(dryAirKgS),
+        },
+        formula: "q = ṁ_da·(h_out − h_room), ṁ_da = V·ρ_out/(1 + W_out)",
+      }),
+    );
+    spreadScheduled(hourly, powerW * 24, v.hoursPerDay, v.startHour);
+  }
+
+  // Product pull-down -------------------------------------------------------------------------
+  room.products.forEach((p, j) => {
+    const field = `${at}.products.${j}`;
+    const c = commodityOrFail(p.commodityId, `${field}.commodityId`);
+    const tFinal = p.finalTempC ?? tRoom;
+    const split = productHeatSplit(c, p.enteringTempC, tFinal);
+    const basisHours = opts.pullDownBasis === "rate" ? Math.min(p.pullDownHours, 24) : 24;
+    // kJ/day → W on the chosen basis: 1 kJ over `basisHours` h = 1000/(3600·basisHours) W.
+    const toW = (kJ: number) => (kJ * 1000) / (3600 * basisHours);
+    const parts: Array<[string, number]> = [
+      ["sensible above freezing", split.sensibleAboveKJkg],
+      ["latent heat of freezing", split.latentKJkg],
+      ["sensible below freezing", split.sensibleBelowKJkg],
+    ];
+    let dailyKJ = 0;
+    for (const [name, kJkg] of parts) {
+      if (kJkg === 0) continue;
+      let kJ = p.massKgPerDay * kJkg;
+      const ignored = kJ < 0 && ignoreColder;
+      if (ignored) kJ = 0;
+      dailyKJ += kJ;
+      components.push(
+        component(
+          "product",
+          `${c.name}: ${name}`,
+          toW(kJ),
+          0,
+          {
+            method: "Product pull-down, Chen (1985) food enthalpy",
+            source: `${HANDBOOK}; Chen (1985) enthalpy and ice fraction with Schwartzberg bound water, ASHRAE thermal properties of foods; commodity data: ${c.sources.waterFraction}`,
+            inputs: {
+              commodity: c.id,
+              massKgPerDay: p.massKgPerDay,
+              enteringTempC: p.enteringTempC,
+              finalTempC: tFinal,
+              initialFreezingPointC: c.initialFreezingPointC,
+              waterFraction: c.waterFraction,
+              heatKJkg: round(kJkg),
+              pullDownHours: p.pullDownHours,
+              basis: opts.pullDownBasis === "rate" ? `rate over ${basisHours} h carried over the day` : "daily energy over 24 h",
+              colderProduct: ignored ? "warming of colder product ignored (option colderNeighbour = ignore)" : "counted",
+            },
+            formula:
+              "Q = m·[c_u·(T_in − T_f) + L0·x_ice(T_final) + (1.55 + 1.26·x_s)·(T_f − T_final)], x_ice = (x_wo − x_b)(1 − T_f/T); q = Q / basis hours",
+          },
+          p.id ?? `${j}`,
+        ),
+      );
+    }
+    if (p.packaging) {
+      const pk = p.packaging;
+      const massKg = packagingMassKg(pk, p.massKgPerDay);
+      const cp = pk.specificHeatKJkgK ?? PACKAGING_CP_KJKGK[pk.kind];
+      let kJ = packagingHeatKJ(massKg, cp, p.enteringTempC, tFinal);
+      if (kJ < 0 && ignoreColder) kJ = 0;
+      dailyKJ += kJ;
+      components.push(
+        component(
+          "packaging",
+          `${c.name}: packaging (${pk.kind})`,
+          toW(kJ),
+          0,
+          {
+            method: "Packaging sensible heat m·c·ΔT",
+            source: `${HANDBOOK}; specific heats from general property tables (from memory)`,
+            inputs: { kind: pk.kind, massKgPerDay: round(massKg), cpKJkgK: cp, enteringTempC: p.enteringTempC, finalTempC: tFinal },
+            formula: "Q = m·c·(T_in − T_final); q = Q / basis hours",
+          },
+          p.id ?? `${j}`,
+        ),
+      );
+    }
+    const dailyWh = dailyKJ / 3.6;
+    if (p.arrivalsByHour) {
+      const sum = p.arrivalsByHour.reduce((a, b) => a + b, 0);
+      if (!(sum > 0)) fail(`${field}.arrivalsByHour`, "at least one hour must have arrivals");
+      p.arrivalsByHour.forEach((w, h) => {
+        if (w > 0) spreadPeriodic(hourly, (dailyWh * w) / sum, h, p.pullDownHours);
+      });
+    } else {
+      spreadPeriodic(hourly, dailyWh, 0, 24);
+    }
+  });
+
+  // Respiration ---------------------------------------------------------------------------------
+  const multiplier = room.ripening?.chargeActive ? room.ripening.respirationMultiplier : 1;
+  room.storedProduce.forEach((s, j) => {
+    const field = `${at}.storedProduce.${j}`;
+    const c = commodityOrFail(s.commodityId, `${field}.commodityId`);
+    if (c.group !== "fruit" && c.group !== "vegetable") return;
+    const massKg = s.massKg ?? (s.palletPositions as number) * (s.kgPerPallet as number);
+    const wPerKg = respirationWPerKg(c, tRoom, `${field}.commodityId`);
+    const powerW = massKg * wPerKg * multiplier;
+    components.push(
+      component(
+        "respiration",
+        `${c.name}: respiration`,
+        powerW,
+        0,
+        {
+          method: c.respiration?.kind === "fg" ? "Respiration, Becker–Fricke fit" : "Respiration, tabulated heat of respiration",
+          source: c.sources.respiration,
+          inputs: {
+            commodity: c.id,
+            massKg: round(massKg),
+            palletPositions: s.palletPositions ?? "—",
+            kgPerPallet: s.kgPerPallet ?? "—",
+            roomTempC: tRoom,
+            wPerKg: round(wPerKg),
+            ripeningMultiplier: multiplier,
+            ...(c.respiration?.kind === "fg" ? { f: c.respiration.f, g: c.respiration.g } : {}),
+          },
+          formula:
+            c.respiration?.kind === "fg"
+              ? "q = m·(10.7·f/3600)·(9T/5 + 32)^g × ripening multiplier"
+              : "q = m·q(T) (log-linear between tabulated points) × ripening multiplier",
+        },
+        `${j}`,
+      ),
+    );
+    spreadPeriodic(hourly, powerW * 24, 0, 24);
+  });
+
+  // Batch freezing ------------------------------------------------------------------------------
+  if (room.batch) {
+    const b = room.batch;
+    const field = `${at}.batch`;
+    const c = commodityOrFail(b.commodityId, `${field}.commodityId`);
+    const airC = b.airTempC ?? tRoom;
+    const tf = c.initialFreezingPointC;
+    if (!(airC < b.finalTempC)) fail(`${field}.finalTempC`, `the final temperature must be above the air temperature (${airC} °C)`);
+    if (!(b.enteringTempC > b.finalTempC)) fail(`${field}.enteringTempC`, `must be above the final temperature (${b.finalTempC} °C)`);
+    const rho = b.densityKgM3 ?? c.densityKgM3;
+    const k = b.frozenConductivityWmK ?? c.frozenConductivityWmK;
+    if (rho === undefined) fail(`${field}.densityKgM3`, `no density for "${c.id}" in the library: give densityKgM3`);
+    if (k === undefined) fail(`${field}.frozenConductivityWmK`, `no frozen conductivity for "${c.id}" in the library: give frozenConductivityWmK`);
+    const hWm2K = b.surfaceHeatTransferWm2K ?? airSurfaceCoefficientWm2K(b.airVelocityMS);
+    let freezeS: number;
+    let methodName: string;
+    if (b.freezingTimeMethod === "plank") {
+      if (!(airC < tf)) fail(`${field}.airTempC`, `air at ${airC} °C cannot freeze ${c.id} (initial freezing point ${tf} °C)`);
+      freezeS = plankFreezingTimeS({
+        densityKgM3: rho,
+        latentHeatJkg: c.latentHeatKJkg * 1000,
+        freezingPointC: tf,
+        airTempC: airC,
+        thicknessM: b.thicknessM,
+        hWm2K,
+        frozenConductivityWmK: k,
+        shape: b.shape,
+      });
+      methodName = "Plank (phase change only)";
+    } else {
+      const pham = phamFreezingTimeS({
+        densityKgM3: rho,
+        latentHeatJkg: c.latentHeatKJkg * 1000,
+        cpUnfrozenJkgK: c.cpAboveKJkgK * 1000,
+        cpFrozenJkgK: c.cpBelowKJkgK * 1000,
+        initialTempC: b.enteringTempC,
+        finalCentreTempC: b.finalTempC,
+        airTempC: airC,
+        thicknessM: b.thicknessM,
+        hWm2K,
+        frozenConductivityWmK: k,
+        shape: b.shape,
+      });
+      if (!(b.enteringTempC > pham.meanFreezingTempC)) {
+        fail(`${field}.enteringTempC`, `Pham's method needs the product to enter above its mean freezing temperature (${pham.meanFreezingTempC.toFixed(1)} °C); use freezingTimeMethod "plank"`);
+      }
+      if (!(airC < pham.meanFreezingTempC)) fail(`${field}.airTempC`, `air at ${airC} °C cannot freeze ${c.id}`);
+      freezeS = pham.timeS;
+      methodName = "Pham (1986), including pre-cooling and sub-cooling";
+    }
+    const batchHours = b.batchHours ?? freezeS / 3600;
+    if (b.batchesPerDay * batchHours > 24 + 1e-9) {
+      fail(`${field}.batchesPerDay`, `${b.batchesPerDay} batches of ${batchHours.toFixed(1)} h do not fit in 24 h`);
+    }
+    const split = productHeatSplit(c, b.enteringTempC, b.finalTempC);
+    const batchKJ = b.massKg * split.totalKJkg;
+    const packKJ = b.packaging
+      ? packagingHeatKJ(packagingMassKg(b.packaging, b.massKg), b.packaging.specificHeatKJkgK ?? PACKAGING_CP_KJKGK[b.packaging.kind], b.enteringTempC, b.finalTempC)
+      : 0;
+    const basisNote = opts.pullDownBasis === "rate" ? `batch rate over ${batchHours.toFixed(2)} h carried over the day` : "daily energy over 24 h";
+    const toW = (kJPerBatch: number) =>
+      opts.pullDownBasis === "rate" ? (kJPerBatch * 1000) / (batchHours * 3600) : (kJPerBatch * b.batchesPerDay * 1000) / (24 * 3600);
+    const common = {
+      commodity: c.id,
+      massKgPerBatch: b.massKg,
+      batchesPerDay: b.batchesPerDay,
+      enteringTempC: b.enteringTempC,
+      finalTempC: b.finalTempC,
+      airTempC: airC,
+      airVelocityMS: b.airVelocityMS,
+      hWm2K: round(hWm2K),
+      thicknessM: b.thicknessM,
+      shape: b.shape,
+      densityKgM3: rho,
+      frozenConductivityWmK: k,
+      freezingTimeMethod: methodName,
+      freezingTimeH: round(freezeS / 3600),
+      batchHours: round(batchHours),
+      basis: basisNote,
+    };
+    components.push(
+      component(
+        "batch",
+        `${c.name}: batch freezing`,
+        toW(batchKJ),
+        0,
+        {
+          method: `Batch freezing, Chen (1985) enthalpy; batch time by ${methodName}`,
+          source: `${HANDBOOK}; Plank (1913) / Pham (1986) freezing time; Chen (1985) enthalpy; h by Jürges/McAdams (from memory)`,
+          inputs: { ...common, heatKJkg: round(split.totalKJkg), latentKJkg: round(split.latentKJkg) },
+          formula: "Q = m·(H(T_in) − H(T_final)); q = Q / batch time (rate) or n·Q / 24 h",
+        },
+        "batch",
+      ),
+    );
+    if (packKJ !== 0) {
+      components.push(
+        component(
+          "packaging",
+          `${c.name}: batch packaging (${b.packaging?.kind})`,
+          toW(packKJ),
+          0,
+          {
+            method: "Packaging sensible heat m·c·ΔT",
+            source: `${HANDBOOK}; specific heats from general property tables (from memory)`,
+            inputs: { ...common, packagingKJPerBatch: round(packKJ) },
+            formula: "Q = m·c·(T_in − T_final)",
+          },
+          "batch",
+        ),
+      );
+    }
+    const fanWh = b.fanPowerW * batchHours * b.batchesPerDay;
+    if (b.fanPowerW > 0) {
+      components.push(
+        component(
+          "batch",
+          "batch fans",
+          opts.pullDownBasis === "rate" ? b.fanPowerW : fanWh / 24,
+          0,
+          {
+            method: "Fan motor heat (all input power becomes heat in the room)",
+            source: HANDBOOK,
+            inputs: { fanPowerW: b.fanPowerW, runHoursPerDay: round(batchHours * b.batchesPerDay), basis: basisNote },
+            formula: "q = P_fan while a batch runs",
+          },
+          "batch",
+        ),
+      );
+    }
+    for (let n = 0; n < b.batchesPerDay; n++) {
+      spreadPeriodic(hourly, (batchKJ + packKJ) / 3.6 + b.fanPowerW * batchHours, b.startHour + n * batchHours, batchHours);
+    }
+  }
+
+  // Internal loads --------------------------------------------------------------------------------
+  const scheduled = (
+    kind: LoadComponentKind,
+    label: string,
+    powerWhileOnW: number,
+    hoursPerDay: number,
+    startHour: number | undefined,
+    method: string,
+    source: string,
+    inputs: Record<string, number | string>,
+    formula: string,
+  ) => {
+    const energyWh = powerWhileOnW * hoursPerDay;
+    components.push(component(kind, label, energyWh / 24, 0, { method, source, inputs: { ...inputs, hoursPerDay }, formula }));
+    spreadScheduled(hourly, energyWh, hoursPerDay, startHour);
+  };
+
+  if (room.people && room.people.count > 0) {
+    const perPersonW = 272 - 6 * tRoom;
+    scheduled(
+      "people",
+      "people",
+      room.people.count * perPersonW,
+      room.people.hoursPerDay,
+      room.people.startHour,
+      "Heat from people, 272 − 6·t W per person",
+      `${HANDBOOK} (from memory)`,
+      { count: room.people.count, roomTempC: tRoom, perPersonW: round(perPersonW) },
+      "q = n·(272 − 6·t)",
+    );
+  }
+  if (room.lights) {
+    const l = room.lights;
+    const w = l.powerW ?? (l.wPerM2 as number) * floorAreaM2;
+    scheduled("lights", "lights", w, l.hoursPerDay, l.startHour, "Lighting heat", HANDBOOK, { powerW: round(w), wPerM2: l.wPerM2 ?? "—", floorAreaM2: round(floorAreaM2) }, "q = P·h/24");
+  }
+  for (const m of room.machinery) {
+    scheduled("machinery", m.label, m.powerW, m.hoursPerDay, m.startHour, "Machinery input power as heat", HANDBOOK, { powerW: m.powerW }, "q = P·h/24");
+  }
+  if (room.forklifts && room.forklifts.count > 0) {
+    const f = room.forklifts;
+    scheduled("forklifts", "forklifts", f.count * f.powerWEach, f.hoursPerDay, f.startHour, "Forklift heat", HANDBOOK, { count: f.count, powerWEach: f.powerWEach }, "q = n·P·h/24");
+  }
+  if (room.batteryCharging) {
+    const bc = room.batteryCharging;
+    scheduled("batteryCharging", "battery charging", bc.heatW, bc.hoursPerDay, bc.startHour, "Battery-charging heat released in the room", "common practice", { heatW: bc.heatW }, "q = P·h/24");
+  }
+  room.heaters.forEach((h, j) => {
+    const w = h.powerW * h.fractionToRoom;
+    scheduled(
+      "heater",
+      h.label ?? `${h.kind} heater`,
+      w,
+      h.hoursPerDay,
+      undefined,
+      "Heater power reaching the room",
+      `${HANDBOOK}; share to room as given`,
+      { kind: h.kind, powerW: h.powerW, fractionToRoom: h.fractionToRoom, index: j },
+      "q = P·share·h/24",
+    );
+  });
+
+  const fans = room.evaporatorFans;
+  requireFinite(fans.powerW, `${at}.evaporatorFans.powerW`, "evaporator fan power");
+  requireFinite(fans.hoursPerDay, `${at}.evaporatorFans.hoursPerDay`, "evaporator fan hours");
+  if (fans.hoursPerDay > 24) fail(`${at}.evaporatorFans.hoursPerDay`, "must be between 0 and 24 h/day");
+  if (fans.powerW > 0) {
+    scheduled("evaporatorFans", "evaporator fans", fans.powerW, fans.hoursPerDay, undefined, "Evaporator fan motor heat (all input inside the room)", HANDBOOK, { powerW: fans.powerW }, "q = P·h/24");
+  }
+  const d = room.defrost;
+  requireFinite(d.heaterW, `${at}.defrost.heaterW`, "defrost heater power");
+  requireFinite(d.minutesPerDefrost, `${at}.defrost.minutesPerDefrost`, "defrost minutes");
+  requireFinite(d.defrostsPerDay, `${at}.defrost.defrostsPerDay`, "defrosts per day");
+  if (!(d.fractionToRoom >= 0 && d.fractionToRoom <= 1)) fail(`${at}.defrost.fractionToRoom`, "must be between 0 and 1");
+  const defrostWh = d.heaterW * (d.minutesPerDefrost / 60) * d.defrostsPerDay * d.fractionToRoom;
+  if (defrostWh > 0) {
+    components.push(
+      component("defrost", "defrost", defrostWh / 24, 0, {
+        method: "Defrost heat reaching the room",
+        source: `${HANDBOOK}; share to room a third to a half (common practice)`,
+        inputs: { heaterW: d.heaterW, minutesPerDefrost: d.minutesPerDefrost, defrostsPerDay: d.defrostsPerDay, fractionToRoom: d.fractionToRoom },
+        formula: "q = P·(min/60)·n·share / 24",
+      }),
+    );
+    spreadPeriodic(hourly, defrostWh, 0, 24);
+  }
+
+  // Sums ------------------------------------------------------------------------------------------
+  let averageLoadW = 0;
+  let latentW = 0;
+  for (const c of components) {
+    averageLoadW += c.powerW;
+    latentW += c.latentW;
+  }
+  const sensibleW = averageLoadW - latentW;
+  let peakHour = 0;
+  for (let h = 1; h < 24; h++) if (hourly[h] > hourly[peakHour]) peakHour = h;
+  const sf = room.safetyFactor;
+  const totalEnergyKWhPerDay = (averageLoadW * 24) / 1000;
+  const requiredCapacityW = (averageLoadW * 24 * (1 + sf)) / room.runHoursPerDay;
+  const requiredPeakCapacityW = hourly[peakHour] * (1 + sf);
+  const result: RoomLoadResult = {
+    roomId: room.id,
+    roomName: room.name,
+    components,
+    totalEnergyKWhPerDay,
+    averageLoadW,
+    safetyFactor: sf,
+    runHoursPerDay: room.runHoursPerDay,
+    requiredCapacityW,
+    sensibleW,
+    latentW,
+    sensibleHeatRatio: averageLoadW > 0 ? sensibleW / averageLoadW : 1,
+    hourly,
+    peakHourW: hourly[peakHour],
+    peakHour,
+    requiredPeakCapacityW,
+    designCapacityW: Math.max(requiredCapacityW, requiredPeakCapacityW),
+  };
+  for (const key of ["averageLoadW", "requiredCapacityW", "latentW", "peakHourW"] as const) {
+    if (!Number.isFinite(result[key])) fail(at, `${key} came out non-finite: check the room's inputs`);
+  }
+  return result;
+}
+
+function statements(o: LedgerOptions): string[] {
+  return [
+    o.colderNeighbour === "ignore"
+      ? "Heat flowing to a colder side (neighbour room, ground, cool air or colder product) is ignored, not credited."
+      : "Heat flowing to a colder side (neighbour room, ground, cool air or colder product) is credited against the load.",
+    o.pullDownBasis === "rate"
+      ? "Product pull-downs and batches shorter than a day are put on the 24-hour basis at their pull-down rate, carried over the whole day (sizing practice)."
+      : "Product pull-downs and batches are put on the 24-hour basis by their actual daily energy.",
+    "Door infiltration is charged to the colder of the two spaces a door joins; the warmer side is not credited.",
+    "The hourly profile is the physical load through the design day (arrivals, door traffic and schedules by hour).",
+  ];
+}
+
+/**
+ * The facility's heat ledger: validates the model, builds the shared context and computes
+ * every room with {@link computeRoomLoad}; totals are sums over rooms, the coincident peak
+ * from the summed hourly profiles. Throws {@link LoadInputError} naming the field on bad input.
+ */
+export function computeLedger(raw: LedgerInputRaw): LedgerResult {
+  const ctx = buildLedgerContext(raw);
+  return ledgerFromContext(ctx);
+}
+
+/** As {@link computeLedger} for a context already built (e.g. by a plant loop). */
+export function ledgerFromContext(ctx: LedgerContext, rooms: ReadonlyArray<RoomInput> = ctx.input.rooms): LedgerResult {
+  const results = rooms.map((r) => computeRoomLoad(r, ctx));
+  const hourly = new Array<number>(24).fill(0);
+  const hourlyWithSF = new Array<number>(24).fill(0);
+  let totalEnergyKWhPerDay = 0;
+  let averageLoadW = 0;
+  let requiredCapacityW = 0;
+  let sensibleW = 0;
+  let latentW = 0;
+  for (const r of results) {
+    totalEnergyKWhPerDay += r.totalEnergyKWhPerDay;
+    averageLoadW += r.averageLoadW;
+    requiredCapacityW += r.requiredCapacityW;
+    sensibleW += r.sensibleW;
+    latentW += r.latentW;
+    for (let h = 0; h < 24; h++) {
+      hourly[h] += r.hourly[h];
+      hourlyWithSF[h] += r.hourly[h] * (1 + r.safetyFactor);
+    }
+  }
+  let peakHour = 0;
+  let peakSF = 0;
+  for (let h = 0; h < 24; h++) {
+    if (hourly[h] > hourly[peakHour]) peakHour = h;
+    if (hourlyWithSF[h] > peakSF) peakSF = hourlyWithSF[h];
+  }
+  const out = ctx.site.outdoor;
+  return {
+    rooms: results,
+    totals: {
+      totalEnergyKWhPerDay,
+      averageLoadW,
+      requiredCapacityW,
+      sensibleW,
+      latentW,
+      hourly,
+      peakHourW: hourly[peakHour],
+      peakHour,
+      requiredPeakCapacityW: peakSF,
+    },
+    options: { ...ctx.options, statements: statements(ctx.options) },
+    site: {
+      pressurePa: ctx.site.pressurePa,
+      outdoorHumRatio: out.humRatio,
+      outdoorEnthalpyJkg: out.enthalpyJkg,
+      outdoorDensityKgM3: out.densityKgM3,
+      outdoorRHPct: relativeHumidityPct(out),
+    },
+    engineVersion: ENGINE_VERSION,
+  };
+}
