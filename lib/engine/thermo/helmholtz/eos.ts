@@ -130,8 +130,11 @@ export class HelmholtzEos {
     this.na = data.nonAnalytic;
   }
 
-  /** Fills `out` with αʳ, α° and their reduced derivatives at (δ, τ). */
-  evaluate(delta: number, tau: number, out: AlphaDerivs): AlphaDerivs {
+  /**
+   * Fills `out` with αʳ, α° and their reduced derivatives at (δ, τ). With `residualOnly` the
+   * ideal-gas part (a function of τ alone) is left untouched, for density iterations.
+   */
+  evaluate(delta: number, tau: number, out: AlphaDerivs, residualOnly = false): AlphaDerivs {
     let ar = 0,
       dAr = 0,
       ddAr = 0,
@@ -202,6 +205,13 @@ export class HelmholtzEos {
         dtAr += dlt * tau * r[5];
       }
     }
+    out.ar = ar;
+    out.dAr = dAr;
+    out.ddAr = ddAr;
+    out.tAr = tAr;
+    out.ttAr = ttAr;
+    out.dtAr = dtAr;
+    if (residualOnly) return out;
     // ideal-gas part
     const id = this.ideal;
     let a0 = id.a1 + id.a2 * tau + id.logTau * lnT;
@@ -227,12 +237,6 @@ export class HelmholtzEos {
         ttA0 -= (en[i] * th * th * e) / (om * om);
       }
     }
-    out.ar = ar;
-    out.dAr = dAr;
-    out.ddAr = ddAr;
-    out.tAr = tAr;
-    out.ttAr = ttAr;
-    out.dtAr = dtAr;
     out.a0 = a0;
     out.tA0 = tA0;
     out.ttA0 = ttA0;
@@ -262,24 +266,28 @@ function nonAnalytic(na: NonAnalyticTerms, i: number, delta: number, tau: number
   const dm1sq = dm1 * dm1;
   const tm1 = tau - 1;
   const psi = Math.exp(-C * dm1sq - D * tm1 * tm1);
-  const theta = 1 - tau + A * Math.pow(dm1sq, 1 / (2 * beta));
-  const Delta = theta * theta + B * Math.pow(dm1sq, a);
+  // powers of (δ−1)² derived from two pow() calls (this is the costly part of the evaluator)
+  const q = Math.pow(dm1sq, 1 / (2 * beta));
+  const qa = Math.pow(dm1sq, a);
+  const theta = 1 - tau + A * q;
+  const Delta = theta * theta + B * qa;
   const psiD = -2 * C * dm1 * psi;
   const psiDD = (2 * C * dm1sq - 1) * 2 * C * psi;
   const psiT = -2 * D * tm1 * psi;
   const psiTT = (2 * D * tm1 * tm1 - 1) * 2 * D * psi;
   const psiDT = 4 * C * D * dm1 * tm1 * psi;
-  const p1 = Math.pow(dm1sq, 1 / (2 * beta) - 1);
-  const dDelta = dm1 * ((A * theta * 2) / beta * p1 + 2 * B * a * Math.pow(dm1sq, a - 1));
+  const p1 = q / dm1sq;
+  const qa1 = qa / dm1sq;
+  const dDelta = dm1 * ((A * theta * 2) / beta * p1 + 2 * B * a * qa1);
   const ddDelta =
     dDelta / dm1 +
     dm1sq *
-      (4 * B * a * (a - 1) * Math.pow(dm1sq, a - 2) +
+      (4 * B * a * (a - 1) * (qa1 / dm1sq) +
         2 * A * A * (1 / beta) * (1 / beta) * p1 * p1 +
-        ((A * theta * 4) / beta) * (1 / (2 * beta) - 1) * Math.pow(dm1sq, 1 / (2 * beta) - 2));
+        ((A * theta * 4) / beta) * (1 / (2 * beta) - 1) * (p1 / dm1sq));
   const Db = Math.pow(Delta, b);
-  const Db1 = Math.pow(Delta, b - 1);
-  const Db2 = Math.pow(Delta, b - 2);
+  const Db1 = Db / Delta;
+  const Db2 = Db1 / Delta;
   const DbD = b * Db1 * dDelta;
   const DbDD = b * (Db1 * ddDelta + (b - 1) * Db2 * dDelta * dDelta);
   const DbT = -2 * theta * b * Db1;

@@ -26,7 +26,7 @@ export interface PureFluidData {
   eos: HelmholtzEosData;
   range: ValidityRange;
   ancillaries: { rhoL: Ancillary; rhoV: Ancillary };
-  /** Grid size of the saturation table (default 700). */
+  /** Grid size of the saturation table (default 1000). */
   satTablePoints?: number;
 }
 
@@ -41,6 +41,7 @@ export interface MaxwellSolution {
 // columns of the saturation table
 const C_LNP = 0,
   C_RL = 1,
+  /** ln ρ'' (spans decades at low T) */
   C_RV = 2,
   C_HL = 3,
   C_HV = 4,
@@ -63,6 +64,8 @@ interface RawProps {
   wMs: number;
   /** ∂p/∂ρ at constant T */
   dpdrho: number;
+  /** ∂p/∂T at constant ρ */
+  dpdT: number;
 }
 
 export class HelmholtzFluid implements Fluid {
@@ -93,7 +96,7 @@ export class HelmholtzFluid implements Fluid {
     this.eos = new HelmholtzEos(data.eos);
     this.tc = data.meta.criticalTempK;
     this.pc = data.meta.criticalPressurePa;
-    const n = data.satTablePoints ?? 700;
+    const n = data.satTablePoints ?? 1000;
     this.uMin = Math.sqrt(CRIT_MARGIN_K);
     const uMax = Math.sqrt(this.tc - data.range.tMinK);
     this.du = (uMax - this.uMin) / (n - 1);
@@ -126,7 +129,7 @@ export class HelmholtzFluid implements Fluid {
       }
       const l = this.raw(sol.rhoL, tK);
       const v = this.raw(sol.rhoV, tK);
-      rows.push([Math.log(sol.pPa), sol.rhoL, sol.rhoV, l.hJkg, v.hJkg, l.sJkgK, v.sJkgK, l.cpJkgK, v.cpJkgK, l.wMs, v.wMs]);
+      rows.push([Math.log(sol.pPa), sol.rhoL, Math.log(sol.rhoV), l.hJkg, v.hJkg, l.sJkgK, v.sJkgK, l.cpJkgK, v.cpJkgK, l.wMs, v.wMs]);
       prev2 = prev;
       prev = sol;
     }
@@ -176,6 +179,7 @@ export class HelmholtzFluid implements Fluid {
       cpJkgK: e.r * (cvR + (num * num) / den),
       wMs: Math.sqrt(Math.max(0, rt * (den + (num * num) / cvR))),
       dpdrho: rt * den,
+      dpdT: rhoKgM3 * e.r * num,
     };
   }
 
@@ -239,7 +243,7 @@ export class HelmholtzFluid implements Fluid {
   maxwellAtT(tK: number): MaxwellSolution {
     this.checkSatT(tK);
     const i = this.weights(tK);
-    const sol = this.maxwellSolve(tK, this.col(i, C_RL), this.col(i, C_RV));
+    const sol = this.maxwellSolve(tK, this.col(i, C_RL), Math.exp(this.col(i, C_RV)));
     if (!sol) throw new Error(`${this.meta.id}: Maxwell solve failed at ${tK} K`);
     return sol;
   }
@@ -290,7 +294,7 @@ export class HelmholtzFluid implements Fluid {
     const vapour: PhaseProps = {
       tK,
       pPa,
-      densityKgM3: this.col(i, C_RV),
+      densityKgM3: Math.exp(this.col(i, C_RV)),
       hJkg: this.col(i, C_HV) + this.hOffsetJkg,
       sJkgK: this.col(i, C_SV) + this.sOffsetJkgK,
       cpJkgK: this.col(i, C_CPV),
@@ -411,7 +415,7 @@ export class HelmholtzFluid implements Fluid {
         hi = this.rhoMaxKgM3;
         rho = guess !== undefined && guess > lo ? guess : rl * (1 + 1e-6);
       } else {
-        const rv = this.col(i, C_RV);
+        const rv = Math.exp(this.col(i, C_RV));
         lo = 0;
         hi = rv * (1 + 1e-7);
         rho = guess !== undefined && guess < hi ? guess : rv * (pPa / psat);
@@ -427,7 +431,7 @@ export class HelmholtzFluid implements Fluid {
     const rt = e.r * tK;
     const a = this.al;
     for (let it = 0; it < 100; it++) {
-      e.evaluate(rho / e.rhor, tau, a);
+      e.evaluate(rho / e.rhor, tau, a, true);
       const f = rho * rt * (1 + a.dAr) - pPa;
       if (Math.abs(f) <= 1e-12 * pPa) return rho;
       if (f > 0) hi = rho;
@@ -491,14 +495,17 @@ export class HelmholtzFluid implements Fluid {
     let tLo = this.range.tMinK;
     let tHi = this.range.tMaxK;
     let tGuess: number;
+    let rhoGuess: number | undefined;
     if (pPa >= this.pSatMinPa && pPa < this.pSatMaxPa) {
       const { i, tK } = this.tSatAt(pPa);
       const yl = this.col(i, isS ? C_SL : C_HL);
       const yv = this.col(i, isS ? C_SV : C_HV);
-      if (raw >= yl && raw <= yv) {
-        const x = (raw - yl) / (yv - yl);
+      // a hair of tolerance so that saturated states given exactly (x = 0 or 1) stay on the dome
+      const eps = 1e-9 * (yv - yl);
+      if (raw >= yl - eps && raw <= yv + eps) {
+        const x = Math.min(1, Math.max(0, (raw - yl) / (yv - yl)));
         const vl = 1 / this.col(i, C_RL);
-        const vv = 1 / this.col(i, C_RV);
+        const vv = Math.exp(-this.col(i, C_RV));
         const hl = this.col(i, C_HL),
           hv = this.col(i, C_HV),
           sl = this.col(i, C_SL),
@@ -522,10 +529,14 @@ export class HelmholtzFluid implements Fluid {
         const cp = this.col(i, C_CPV);
         tGuess = tK + (isS ? tK * (Math.exp((raw - yv) / cp) - 1) : (raw - yv) / cp);
       }
+    } else if (pPa >= this.pSatMaxPa) {
+      const g = this.guideGuess(pPa, raw, isS);
+      tGuess = g.tK;
+      rhoGuess = g.rho;
     } else {
       tGuess = this.tc;
     }
-    const tK = this.solveT(pPa, raw, isS, tLo, tHi, tGuess, field);
+    const tK = this.solveT(pPa, raw, isS, tLo, tHi, tGuess, field, rhoGuess);
     return this.stateAt(pPa, tK, this.lastRho);
   }
 
@@ -535,15 +546,30 @@ export class HelmholtzFluid implements Fluid {
    * Temperature on the isobar where h (or s) equals the target: h and s rise monotonically
    * with T at constant P (∂h/∂T = cp, ∂s/∂T = cp/T), so a safeguarded Newton converges.
    */
-  private solveT(pPa: number, target: number, isS: boolean, lo: number, hi: number, guess: number, field: string): number {
+  private solveT(
+    pPa: number,
+    target: number,
+    isS: boolean,
+    lo: number,
+    hi: number,
+    guess: number,
+    field: string,
+    rhoGuess?: number,
+  ): number {
     const bounds = { lo, hi };
     let loKnown = false,
       hiKnown = false;
     let t = Math.min(hi, Math.max(lo, guess));
-    let rho: number | undefined;
+    let rho: number | undefined = rhoGuess;
+    let tPrev = 0,
+      drhodT = 0;
     const evalAt = (tK: number): [number, number] => {
-      rho = this.densityPT(pPa, tK, rho);
+      // seed the density with the isobaric slope (∂ρ/∂T)_P = −(∂p/∂T)_ρ / (∂p/∂ρ)_T
+      const seed = rho === undefined || tPrev === 0 ? rho : rho + drhodT * (tK - tPrev);
+      rho = this.densityPT(pPa, tK, seed);
       const r = this.raw(rho, tK);
+      tPrev = tK;
+      drhodT = -r.dpdT / r.dpdrho;
       return isS ? [r.sJkgK - target, r.cpJkgK / tK] : [r.hJkg - target, r.cpJkgK];
     };
     const tol = isS ? 1e-9 : 1e-6;
@@ -587,6 +613,66 @@ export class HelmholtzFluid implements Fluid {
     }
     this.lastRho = rho ?? this.densityPT(pPa, t);
     return t;
+  }
+
+  /**
+   * Above the saturation table's top pressure there is no dome to start from, and h(T) on
+   * a supercritical isobar bends sharply near the pseudo-critical line; a coarse (ln P, T)
+   * grid of h, s and ρ, built on first use, gives the flash a start within a few kelvin.
+   */
+  private guide?: { lnP0: number; dlnP: number; nP: number; nT: number; t: Float64Array; y: Float64Array[]; rho: Float64Array };
+
+  private guideGuess(pPa: number, target: number, isS: boolean): { tK: number; rho: number } {
+    if (!this.guide) {
+      const nP = 24,
+        nT = 64;
+      const lnP0 = Math.log(this.pSatMaxPa);
+      const dlnP = (Math.log(this.range.pMaxPa) - lnP0) / (nP - 1);
+      const t = new Float64Array(nT);
+      for (let j = 0; j < nT; j++) t[j] = this.range.tMinK + ((this.range.tMaxK - this.range.tMinK) * j) / (nT - 1);
+      const h = new Float64Array(nP * nT),
+        sv = new Float64Array(nP * nT),
+        rho = new Float64Array(nP * nT);
+      for (let i = 0; i < nP; i++) {
+        const p = Math.exp(lnP0 + i * dlnP);
+        let r: number | undefined;
+        for (let j = 0; j < nT; j++) {
+          r = this.densityPT(p, t[j], r);
+          const props = this.raw(r, t[j]);
+          h[i * nT + j] = props.hJkg;
+          sv[i * nT + j] = props.sJkgK;
+          rho[i * nT + j] = r;
+        }
+      }
+      this.guide = { lnP0, dlnP, nP, nT, t, y: [h, sv], rho };
+    }
+    const g = this.guide;
+    const y = g.y[isS ? 1 : 0];
+    const x = (Math.log(pPa) - g.lnP0) / g.dlnP;
+    const i0 = Math.min(g.nP - 2, Math.max(0, Math.floor(x)));
+    const wP = Math.min(1, Math.max(0, x - i0));
+    let tK = 0,
+      rho = 0;
+    for (const [row, w] of [
+      [i0, 1 - wP],
+      [i0 + 1, wP],
+    ] as const) {
+      const base = row * g.nT;
+      let a = 0,
+        b = g.nT - 1;
+      if (target <= y[base]) b = 1;
+      else if (target >= y[base + b]) a = b - 1;
+      else
+        while (b - a > 1) {
+          const m = (a + b) >> 1;
+          if (y[base + m] > target) b = m;
+          else a = m;
+        }
+      const f = Math.min(1, Math.max(0, (target - y[base + a]) / (y[base + b] - y[base + a])));
+      tK += w * (g.t[a] + f * (g.t[b] - g.t[a]));
+      rho += w * (g.rho[base + a] + f * (g.rho[base + b] - g.rho[base + a]));
+    }
+    return { tK, rho };
   }
 
   private flashRange(pPa: number, field: string, isS: boolean, b: { lo: number; hi: number }): never {
