@@ -2,9 +2,12 @@
  * Public surface of the refrigerant property engine.
  *
  * All states use SI units and the IIR reference state (h = 200 kJ/kg and s = 1 kJ/(kg·K)
- * for saturated liquid at 0 °C). Pure fluids run on their reference multiparameter
- * Helmholtz equations of state (see README.md); each fluid's coefficients live in its own
- * module and are imported only by `loadFluid`, so a browser bundle carries one fluid at a time.
+ * for saturated liquid at 0 °C; for blends, the bubble-point liquid). Pure fluids run on their
+ * reference multiparameter Helmholtz equations of state; the blends (R404A, R507A, R448A,
+ * R449A, R513A) on the Peng–Robinson mixture model in ./cubic, where `saturationAtT` takes
+ * the dew-point temperature unless told otherwise (see README.md). Each pure fluid's
+ * coefficients live in its own module and are imported only by `loadFluid`, so a browser
+ * bundle carries one fluid at a time; the blends share one module.
  *
  * ```ts
  * const nh3 = await loadFluid("R717");
@@ -51,9 +54,30 @@ const loaders: Record<PureFluidId, () => Promise<{ data: import("./helmholtz/pur
 const loaded = new Map<FluidId, Fluid>();
 const pending = new Map<FluidId, Promise<Fluid>>();
 
-/** Metadata of the fluids (no coefficient data is loaded). */
+type BlendModule = typeof import("./cubic/index");
+let blendModule: BlendModule | undefined;
+
+/** The blends' Peng–Robinson module (./cubic), imported on first need. */
+async function blends(): Promise<BlendModule> {
+  blendModule ??= await import("./cubic/index");
+  return blendModule;
+}
+
+/**
+ * Metadata of the fluids, without loading any equation-of-state data: the pure fluids
+ * always; the blends once their module has been imported (by `loadFluid` of a blend,
+ * `loadAllFluids` or `listAllFluids`), because a blend's molar mass, boiling point and GWP
+ * are computed by its model.
+ */
 export function listFluids(): FluidMeta[] {
-  return PURE_IDS.map((id) => ({ ...pureFluidMeta[id] }));
+  const pure = PURE_IDS.map((id): FluidMeta => ({ ...pureFluidMeta[id] }));
+  return blendModule ? [...pure, ...blendModule.blendMeta.map((m) => ({ ...m }))] : pure;
+}
+
+/** Metadata of every fluid, pure and blends (imports the blend module if needed). */
+export async function listAllFluids(): Promise<FluidMeta[]> {
+  await blends();
+  return listFluids();
 }
 
 function unknownId(id: string): Error {
@@ -73,7 +97,7 @@ export function loadFluid(id: FluidId): Promise<Fluid> {
   if (isPure(id)) {
     p = Promise.all([loaders[id](), import("./helmholtz/pure-fluid")]).then(([mod, pf]) => pf.createHelmholtzFluid(mod.data));
   } else if (BLEND_IDS.includes(id)) {
-    p = Promise.reject(new Error(`Fluid ${id} is not available: the blend models are not part of this build`));
+    p = blends().then((m) => m.createBlend(id));
   } else {
     p = Promise.reject(unknownId(id));
   }
@@ -100,7 +124,7 @@ export function getFluid(id: FluidId): Fluid {
   throw new Error(`Fluid ${id} is not loaded yet: await loadFluid("${id}") first`);
 }
 
-/** Loads every available fluid (those whose model is part of this build). */
+/** Loads every fluid, pure and blends. */
 export async function loadAllFluids(): Promise<Fluid[]> {
-  return Promise.all(listFluids().map((m) => loadFluid(m.id)));
+  return Promise.all(FLUID_IDS.map((id) => loadFluid(id)));
 }
