@@ -393,25 +393,32 @@ export class CubicBlend implements Fluid {
     }
     const liquid = target < xb;
     const root = liquid ? LIQUID_ROOT : VAPOUR_ROOT;
-    let tK = liquid ? this.table.value(idx(0, S_T)) : this.table.value(idx(N_BETA - 1, S_T));
-    const tLimit = liquid ? T_MIN_K : T_MAX_K;
-    const xLimit = (kind === "h" ? this.singlePhase(tLimit, pPa, root).hJkg : this.singlePhase(tLimit, pPa, root).sJkgK);
-    if (liquid ? target < xLimit : target > xLimit) {
-      const unit = kind === "h" ? "J/kg" : "J/(kg·K)";
-      throw new ThermoRangeError(
-        `${this.meta.id}: ${field} = ${target} at pPa = ${pPa} is outside ${liquid ? xLimit.toFixed(1) : xb.toFixed(1)}…${liquid ? xd.toFixed(1) : xLimit.toFixed(1)} ${unit} (T ${T_MIN_K}…${T_MAX_K} K)`,
-        field,
-        liquid ? { min: xLimit, unit } : { max: xLimit, unit },
-      );
-    }
+    // Start from the saturated phase, one cp-step away from it.
+    const tSat = liquid ? this.table.value(idx(0, S_T)) : this.table.value(idx(N_BETA - 1, S_T));
+    const cpSat = liquid ? this.table.value(S_CPL) : this.table.value(S_CPV);
+    const dxSat = target - (liquid ? xb : xd);
+    let tK = kind === "h" ? tSat + dxSat / cpSat : tSat * Math.exp(dxSat / cpSat);
+    let m: MassProps | undefined;
     for (let it = 0; it < 50; it++) {
-      const m = this.singlePhase(tK, pPa, root);
+      tK = Math.min(T_MAX_K + 60, Math.max(T_MIN_K - 30, tK));
+      m = this.singlePhase(tK, pPa, root);
       const x = kind === "h" ? m.hJkg : m.sJkgK;
       const dx = kind === "h" ? m.cpJkgK : m.cpJkgK / tK;
       let step = (x - target) / dx;
       step = Math.max(-40, Math.min(40, step));
       tK -= step;
       if (Math.abs(step) < 1e-9) break;
+    }
+    if (tK < T_MIN_K || tK > T_MAX_K) {
+      const tLimit = liquid ? T_MIN_K : T_MAX_K;
+      const lim = this.singlePhase(tLimit, pPa, root);
+      const xLimit = kind === "h" ? lim.hJkg : lim.sJkgK;
+      const unit = kind === "h" ? "J/kg" : "J/(kg·K)";
+      throw new ThermoRangeError(
+        `${this.meta.id}: ${field} = ${target} at pPa = ${pPa} is outside ${liquid ? xLimit.toFixed(1) : xb.toFixed(1)}…${liquid ? xd.toFixed(1) : xLimit.toFixed(1)} ${unit} (T ${T_MIN_K}…${T_MAX_K} K)`,
+        field,
+        liquid ? { min: xLimit, unit } : { max: xLimit, unit },
+      );
     }
     return this.single(pPa, tK, root);
   }

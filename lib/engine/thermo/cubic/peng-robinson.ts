@@ -60,6 +60,9 @@ export class PengRobinsonMixture {
   /** Σ_j x_j (1−k_ij) √(a_i a_j) of the last `evaluate`, for fugacities. */
   private readonly sumA: Float64Array;
   readonly lnPhi: Float64Array;
+  /** The ideal-gas integrals at T0 (per component, dimensionless ×R), subtracted in `evaluate`. */
+  private readonly h0Ref: Float64Array;
+  private readonly s0Ref: Float64Array;
 
   /**
    * @param kij k_ij at 280 K per pair (symmetric matrix, zero diagonal)
@@ -82,6 +85,9 @@ export class PengRobinsonMixture {
     this.d2s = new Float64Array(n);
     this.sumA = new Float64Array(n);
     this.lnPhi = new Float64Array(n);
+    this.h0Ref = new Float64Array(n);
+    this.s0Ref = new Float64Array(n);
+    const t0 = T0_K / 100;
     for (let i = 0; i < n; i++) {
       const c = components[i];
       // Ω_a = 0.45723553, Ω_b = 0.07779607: the PR constants from the critical-point conditions.
@@ -89,6 +95,9 @@ export class PengRobinsonMixture {
       this.bi[i] = (0.07779607 * R_GAS * c.tcK) / c.pcPa;
       this.ci[i] = c.penelouxM3Mol;
       this.mi[i] = c.molarMassKgMol;
+      const a = c.cp0;
+      this.h0Ref[i] = 100 * t0 * (a[0] + t0 * (a[1] / 2 + t0 * (a[2] / 3 + t0 * (a[3] / 4 + (t0 * a[4]) / 5))));
+      this.s0Ref[i] = a[0] * Math.log(t0) + t0 * (a[1] + t0 * (a[2] / 2 + t0 * (a[3] / 3 + (t0 * a[4]) / 4)));
       for (let j = 0; j < n; j++) {
         this.k0[i * n + j] = kij[i]?.[j] ?? 0;
         this.k1[i * n + j] = kijSlope?.[i]?.[j] ?? 0;
@@ -206,7 +215,7 @@ export class PengRobinsonMixture {
     const inv2s2b = 1 / (2 * SQRT2 * bm);
 
     const tau = tK / 100;
-    const tau0 = T0_K / 100;
+    const lnTau = Math.log(tau);
     let h0 = 0;
     let s0 = 0;
     let cp0 = 0;
@@ -217,10 +226,10 @@ export class PengRobinsonMixture {
       if (xi <= 0) continue;
       const a = this.components[i].cp0;
       // ∫cp0 dT and ∫cp0/T dT of the polynomial in τ = T/100 K, from T0.
-      const H = (t: number) => 100 * t * (a[0] + t * (a[1] / 2 + t * (a[2] / 3 + t * (a[3] / 4 + (t * a[4]) / 5))));
-      const S = (t: number) => a[0] * Math.log(t) + t * (a[1] + t * (a[2] / 2 + t * (a[3] / 3 + (t * a[4]) / 4)));
-      h0 += xi * (H(tau) - H(tau0));
-      s0 += xi * (S(tau) - S(tau0));
+      const H = 100 * tau * (a[0] + tau * (a[1] / 2 + tau * (a[2] / 3 + tau * (a[3] / 4 + (tau * a[4]) / 5))));
+      const S = a[0] * lnTau + tau * (a[1] + tau * (a[2] / 2 + tau * (a[3] / 3 + (tau * a[4]) / 4)));
+      h0 += xi * (H - this.h0Ref[i]);
+      s0 += xi * (S - this.s0Ref[i]);
       cp0 += xi * (a[0] + tau * (a[1] + tau * (a[2] + tau * (a[3] + tau * a[4]))));
       mix += xi * Math.log(xi);
       mm += xi * this.mi[i];
