@@ -409,6 +409,9 @@ export class CubicBlend implements Fluid {
       tK -= step;
       if (Math.abs(step) < 1e-9) break;
     }
+    // A state exactly at a limit may converge a rounding error beyond it.
+    if (tK > T_MIN_K - 1e-7 && tK < T_MIN_K) tK = T_MIN_K;
+    if (tK < T_MAX_K + 1e-7 && tK > T_MAX_K) tK = T_MAX_K;
     if (tK < T_MIN_K || tK > T_MAX_K) {
       const tLimit = liquid ? T_MIN_K : T_MAX_K;
       const lim = this.singlePhase(tLimit, pPa, root);
