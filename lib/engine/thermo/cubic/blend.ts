@@ -81,44 +81,21 @@ export class CubicBlend implements Fluid {
   private readonly bq = new Float64Array(N_BETA);
 
   constructor(def: BlendDef) {
-    const ids = Object.keys(def.massFractions) as ComponentId[];
-    const comps = ids.map((i) => COMPONENTS[i]);
-    const w = ids.map((i) => def.massFractions[i] ?? 0);
-    const moles = w.map((wi, k) => wi / comps[k].molarMassKgMol);
-    const total = moles.reduce((a, b) => a + b, 0);
-    this.z = Float64Array.from(moles, (m) => m / total);
-    const k0 = ids.map((a) => ids.map((b) => (a === b ? 0 : (def.kijOverride?.[`${a}/${b}`] ?? def.kijOverride?.[`${b}/${a}`] ?? kij(a, b)[0]))));
-    const k1 = ids.map((a) => ids.map((b) => (a === b ? 0 : kij(a, b)[1])));
-    this.mix = new PengRobinsonMixture(comps, k0, k1);
-    this.molarMass = this.mix.molarMass(this.z);
+    const { mix, z } = buildMixture(def);
+    this.mix = mix;
+    this.z = z;
+    this.molarMass = mix.molarMass(z);
 
     // IIR reference: h = 200 kJ/kg, s = 1 kJ/(kg·K) for the bubble-point liquid at 0 °C.
-    const ref = solveFixedBeta(this.mix, this.z, "T", 273.15, 0);
+    const ref = solveFixedBeta(mix, z, "T", 273.15, 0);
     this.hOffset = 200e3 - ref.liquid.hJmol / this.molarMass;
     this.sOffset = 1e3 - ref.liquid.sJmolK / this.molarMass;
 
-    const dewMin = solveFixedBeta(this.mix, this.z, "T", T_MIN_K, 1);
+    const dewMin = solveFixedBeta(mix, z, "T", T_MIN_K, 1);
     this.pMinPa = dewMin.pPa * 0.98;
     this.range = { tMinK: T_MIN_K, tMaxK: T_MAX_K, pMaxPa: def.pMaxPa };
+    this.meta = blendMetaOf(def);
     this.table = this.buildTable();
-
-    const gwp = ids.reduce((s, id, k) => s + w[k] * GWP_AR4[id], 0);
-    this.meta = {
-      id: def.id,
-      name: def.name,
-      molarMassKgMol: this.molarMass,
-      criticalTempK: def.criticalTempK,
-      criticalPressurePa: def.criticalPressurePa,
-      criticalDensityKgM3: def.criticalDensityKgM3,
-      normalBoilingPointK: this.saturationAtP(101325).tBubbleK,
-      safetyGroup: def.safetyGroup,
-      gwp100: Math.round(gwp),
-      gwpSource: "IPCC AR4 (100-year), mass-weighted as in Regulation (EU) No 517/2014 Annex IV",
-      odp: 0,
-      composition: Object.fromEntries(ids.map((id, k) => [id, w[k]])),
-      zeotropic: def.zeotropic,
-      model: "Peng–Robinson, Mathias–Copeman alpha, Péneloux shift, vdW one-fluid mixing (cubic)",
-    };
   }
 
   private buildTable(): UniformSplines {
@@ -439,6 +416,52 @@ export class CubicBlend implements Fluid {
     const m = beta === 0 ? this.phaseMass(sol.liquid, LIQUID_ROOT) : this.phaseMass(sol.vapour, VAPOUR_ROOT);
     return { pPa: sol.pPa, densityKgM3: m.densityKgM3, hJkg: m.hJkg, sJkgK: m.sJkgK };
   }
+}
+
+function buildMixture(def: BlendDef): { mix: PengRobinsonMixture; z: Float64Array; ids: ComponentId[]; w: number[] } {
+  const ids = Object.keys(def.massFractions) as ComponentId[];
+  const comps = ids.map((i) => COMPONENTS[i]);
+  const w = ids.map((i) => def.massFractions[i] ?? 0);
+  const moles = w.map((wi, k) => wi / comps[k].molarMassKgMol);
+  const total = moles.reduce((a, b) => a + b, 0);
+  const z = Float64Array.from(moles, (m) => m / total);
+  const override = (a: ComponentId, b: ComponentId) => def.kijOverride?.[`${a}/${b}`] ?? def.kijOverride?.[`${b}/${a}`];
+  const k0 = ids.map((a) => ids.map((b) => (a === b ? 0 : (override(a, b) ?? kij(a, b)[0]))));
+  const k1 = ids.map((a) => ids.map((b) => (a === b ? 0 : kij(a, b)[1])));
+  return { mix: new PengRobinsonMixture(comps, k0, k1), z, ids, w };
+}
+
+const metaCache = new Map<BlendId, FluidMeta>();
+
+/**
+ * Metadata of a blend without building its tables: molar mass from the composition, normal
+ * boiling point (bubble point at 101.325 kPa) from one VLE solve of the model, GWP as the
+ * mass-weighted AR4 values of the components.
+ */
+export function blendMetaOf(def: BlendDef): FluidMeta {
+  const id = def.id as BlendId;
+  const hit = metaCache.get(id);
+  if (hit) return hit;
+  const { mix, z, ids, w } = buildMixture(def);
+  const gwp = ids.reduce((s, c, k) => s + w[k] * GWP_AR4[c], 0);
+  const meta: FluidMeta = {
+    id: def.id,
+    name: def.name,
+    molarMassKgMol: mix.molarMass(z),
+    criticalTempK: def.criticalTempK,
+    criticalPressurePa: def.criticalPressurePa,
+    criticalDensityKgM3: def.criticalDensityKgM3,
+    normalBoilingPointK: solveFixedBeta(mix, z, "P", 101325, 0).tK,
+    safetyGroup: def.safetyGroup,
+    gwp100: Math.round(gwp),
+    gwpSource: "IPCC AR4 (100-year), mass-weighted as in Regulation (EU) No 517/2014 Annex IV",
+    odp: 0,
+    composition: Object.fromEntries(ids.map((c, k) => [c, w[k]])),
+    zeotropic: def.zeotropic,
+    model: "Peng–Robinson, Mathias–Copeman alpha, Péneloux shift, vdW one-fluid mixing (cubic)",
+  };
+  metaCache.set(id, meta);
+  return meta;
 }
 
 const cache = new Map<BlendId, CubicBlend>();

@@ -8,7 +8,7 @@
  * told otherwise ("bubble" or "mean").
  */
 import type { Fluid, FluidId, FluidMeta } from "../types";
-import { getCubicBlend } from "./blend";
+import { blendMetaOf, getCubicBlend } from "./blend";
 import { BLEND_DEFS, type BlendId } from "./blend-defs";
 
 export const BLEND_IDS = Object.keys(BLEND_DEFS) as BlendId[];
@@ -26,5 +26,5 @@ export function createBlend(id: FluidId): Fluid {
   return getCubicBlend(id);
 }
 
-/** Metadata of every blend (builds each blend's model once, on first access). */
-export const blendMeta: FluidMeta[] = BLEND_IDS.map((id) => getCubicBlend(id).meta);
+/** Metadata of every blend (cheap: no tables are built for it). */
+export const blendMeta: FluidMeta[] = BLEND_IDS.map((id) => blendMetaOf(BLEND_DEFS[id]));
