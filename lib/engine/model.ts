@@ -1,0 +1,373 @@
+/**
+ * The facility model: the one document the app stores and the canvas edits — the heat
+ * ledger's input (site, rooms, doors, options) plus the plant — and `computeFacility`, which
+ * computes the ledger and the plant together. Fan and defrost heat depend on the
+ * evaporators, which depend on the load, so each room is solved as a fixed point
+ * (see `solveDutyFixedPoint`) before the circuits are computed.
+ */
+import { z } from "zod";
+import {
+  computeRoomLoad,
+  contextFromParsed,
+  ledgerFromContext,
+  ledgerInputSchema,
+  type LedgerContext,
+  type LedgerInput,
+  type LedgerResult,
+  type RoomInput,
+  type RoomLoadResult,
+} from "./loads";
+import { getFluid as thermoGetFluid } from "./thermo";
+import type { Fluid, FluidId } from "./thermo/types";
+import {
+  cascadeOrder,
+  computeCircuit,
+  evaporatorWarnings,
+  preparePlant,
+  type Ambient,
+  type CircuitResult,
+  type PlantWarning,
+} from "./plant/circuit";
+import { PlantError } from "./plant/errors";
+import {
+  roomFeedback,
+  sizeRoomEvaporators,
+  solveDutyFixedPoint,
+  type EvaporatorSizing,
+  type FixedPointResult,
+} from "./plant/evaporator";
+import { assemblePlant, computePlant, fluidsNeeded, type PlantResult } from "./plant/plant";
+import { plantInputSchema, type EvaporatorInput, type PlantInput } from "./plant/schema";
+
+export const FACILITY_SCHEMA_VERSION = 1 as const;
+export const PLANT_ENGINE_VERSION = "plant-1.0.0";
+
+const plantPart = z.object({
+  schemaVersion: z.literal(FACILITY_SCHEMA_VERSION),
+  plant: plantInputSchema.prefault({}),
+});
+
+/**
+ * `{ schemaVersion: 1, site, rooms, doors, plant, options? }` — the ledger input and the
+ * plant in one document, with the cross-references between them checked (every evaporator
+ * in an existing room).
+ */
+export const facilityModelSchema = z.intersection(ledgerInputSchema, plantPart).superRefine((m, ctx) => {
+  const rooms = new Set((m.rooms ?? []).map((r) => r.id));
+  (m.plant?.evaporators ?? []).forEach((e, i) => {
+    if (!rooms.has(e.roomId))
+      ctx.addIssue({ code: "custom", path: ["plant", "evaporators", i, "roomId"], message: `no room with id "${e.roomId}"` });
+  });
+  (m.plant?.installed?.evaporators ?? []).forEach((e, i) => {
+    if (!rooms.has(e.roomId))
+      ctx.addIssue({ code: "custom", path: ["plant", "installed", "evaporators", i, "roomId"], message: `no room with id "${e.roomId}"` });
+  });
+});
+
+export type FacilityModel = z.output<typeof facilityModelSchema>;
+export type FacilityModelRaw = z.input<typeof facilityModelSchema>;
+
+export interface RoomFixedPoint extends FixedPointResult {
+  roomId: string;
+}
+
+export interface FacilityResult {
+  ledger: LedgerResult;
+  plant: PlantResult;
+  /** Per room with evaporators: the fan/defrost fixed point, its iterations and residual. */
+  fixedPoint: { tolerance: number; maxIterations: number; rooms: RoomFixedPoint[] };
+  engineVersion: string;
+}
+
+export interface ComputeOptions {
+  /** Where fluids come from; default the thermo engine's `getFluid` (load them first). */
+  getFluid?: (id: FluidId) => Fluid;
+}
+
+/** Refrigerants a facility needs loaded before `computeFacility`. */
+export function facilityFluidsNeeded(model: Pick<FacilityModel, "plant">): FluidId[] {
+  return fluidsNeeded(model.plant);
+}
+
+/**
+ * Wet-bulb temperature from dry bulb and RH by Stull's fit (R. Stull, "Wet-bulb temperature
+ * from relative humidity and air temperature", J. Appl. Meteor. Climatol. 50, 2011), stated
+ * within about ±1 K for RH 5–99 % and −20…50 °C at sea-level pressure; used only when the
+ * site gives RH instead of the coincident wet bulb.
+ */
+export function stullWetBulbC(dryBulbC: number, rhPct: number): number {
+  const t = dryBulbC;
+  const rh = rhPct;
+  return (
+    t * Math.atan(0.151977 * Math.sqrt(rh + 8.313659)) +
+    Math.atan(t + rh) -
+    Math.atan(rh - 1.676331) +
+    0.00391838 * Math.pow(rh, 1.5) * Math.atan(0.023101 * rh) -
+    4.686035
+  );
+}
+
+export function ambientOf(site: LedgerInput["site"]): Ambient {
+  const wetBulbC = site.coincidentWetBulbC ?? stullWetBulbC(site.designDryBulbC, site.designRH ?? 50);
+  return { dryBulbC: site.designDryBulbC, wetBulbC: Math.min(wetBulbC, site.designDryBulbC) };
+}
+
+function ledgerPart(m: FacilityModel): LedgerInput {
+  return { site: m.site, rooms: m.rooms, doors: m.doors, options: m.options };
+}
+
+interface RoomSolution {
+  result: RoomLoadResult;
+  sized: EvaporatorSizing[];
+  fixedPoint?: RoomFixedPoint;
+}
+
+/**
+ * One room: the ledger with the plant's fan and defrost heat fed back, solved by
+ * `solveDutyFixedPoint` on the design capacity (the larger of the daily requirement and the
+ * peak hour, both with the safety factor). Rooms without evaporators keep the fan and
+ * defrost entries the user typed.
+ */
+function solveRoom(room: RoomInput, index: number, evs: EvaporatorInput[], lctx: LedgerContext, plant: PlantInput): RoomSolution {
+  if (evs.length === 0) return { result: computeRoomLoad(room, lctx), sized: [] };
+  let last: { x: number; result: RoomLoadResult; sized: EvaporatorSizing[] } | undefined;
+  const f = (x: number) => {
+    const sized = sizeRoomEvaporators(room, evs, x);
+    const result = computeRoomLoad({ ...room, ...roomFeedback(sized) }, lctx);
+    last = { x, result, sized };
+    return result.designCapacityW;
+  };
+  const fp = solveDutyFixedPoint(f, {
+    tolerance: plant.options.fixedPointTolerance,
+    maxIterations: plant.options.fixedPointMaxIterations,
+    field: `rooms[${index}]`,
+  });
+  if (!last || last.x !== fp.valueW) f(fp.valueW);
+  // The evaporators are sized for the converged duty; the ledger is the one at that duty.
+  const sized = sizeRoomEvaporators(room, evs, fp.valueW);
+  return { result: last!.result, sized, fixedPoint: { roomId: room.id, ...fp } };
+}
+
+function aggregate(lctx: LedgerContext, results: RoomLoadResult[]): LedgerResult {
+  // The ledger's own statements, site block and version, with the totals summed here so that
+  // rooms solved by the plant loop are not computed a second time.
+  const shell = ledgerFromContext(lctx, []);
+  const hourly = new Array<number>(24).fill(0);
+  const hourlyWithSF = new Array<number>(24).fill(0);
+  const t = shell.totals;
+  for (const r of results) {
+    t.totalEnergyKWhPerDay += r.totalEnergyKWhPerDay;
+    t.averageLoadW += r.averageLoadW;
+    t.requiredCapacityW += r.requiredCapacityW;
+    t.sensibleW += r.sensibleW;
+    t.latentW += r.latentW;
+    for (let h = 0; h < 24; h++) {
+      hourly[h] += r.hourly[h];
+      hourlyWithSF[h] += r.hourly[h] * (1 + r.safetyFactor);
+    }
+  }
+  let peakHour = 0;
+  let peakSF = 0;
+  for (let h = 0; h < 24; h++) {
+    if (hourly[h] > hourly[peakHour]) peakHour = h;
+    if (hourlyWithSF[h] > peakSF) peakSF = hourlyWithSF[h];
+  }
+  t.hourly = hourly;
+  t.peakHour = peakHour;
+  t.peakHourW = hourly[peakHour];
+  t.requiredPeakCapacityW = peakSF;
+  return { ...shell, rooms: results, totals: t };
+}
+
+function evaporatorsByRoom(plant: PlantInput): Map<string, EvaporatorInput[]> {
+  const m = new Map<string, EvaporatorInput[]>();
+  for (const e of plant.evaporators) {
+    const list = m.get(e.roomId);
+    if (list) list.push(e);
+    else m.set(e.roomId, [e]);
+  }
+  return m;
+}
+
+function roomWarnings(model: FacilityModel, results: RoomLoadResult[], byRoom: Map<string, EvaporatorInput[]>): PlantWarning[] {
+  const out: PlantWarning[] = [];
+  results.forEach((r) => {
+    if (r.designCapacityW > 0 && !byRoom.has(r.roomId) && model.plant.evaporators.length > 0)
+      out.push({
+        code: "ROOM_WITHOUT_EVAPORATOR",
+        severity: "warning",
+        message: `${r.roomName} needs ${(r.designCapacityW / 1000).toFixed(1)} kW but has no evaporator`,
+        ref: { kind: "room", id: r.roomId },
+      });
+  });
+  return out;
+}
+
+/**
+ * Ledger and plant together for a parsed facility model (`facilityModelSchema.parse`):
+ * per room the fan/defrost fixed point (tolerance and cap from `plant.options`;
+ * non-convergence throws PlantError NO_CONVERGENCE naming the room), then every circuit
+ * with its first- and second-law checks. Fluids must be loaded first
+ * (`facilityFluidsNeeded` lists them).
+ */
+export function computeFacility(model: FacilityModel, opts: ComputeOptions = {}): FacilityResult {
+  const getFluid = fluidGetter(opts);
+  const lctx = contextFromParsed(ledgerPart(model));
+  const byRoom = evaporatorsByRoom(model.plant);
+  const solutions = model.rooms.map((room, i) => solveRoom(room, i, byRoom.get(room.id) ?? [], lctx, model.plant));
+  const results = solutions.map((s) => s.result);
+  const sized = solutions.flatMap((s) => s.sized);
+  const plant = computePlant(sized, circuitContext(model, getFluid));
+  plant.warnings.unshift(...roomWarnings(model, results, byRoom));
+  return {
+    ledger: aggregate(lctx, results),
+    plant,
+    fixedPoint: fixedPointSummary(model, solutions),
+    engineVersion: PLANT_ENGINE_VERSION,
+  };
+}
+
+function fixedPointSummary(model: FacilityModel, solutions: RoomSolution[]): FacilityResult["fixedPoint"] {
+  return {
+    tolerance: model.plant.options.fixedPointTolerance,
+    maxIterations: model.plant.options.fixedPointMaxIterations,
+    rooms: solutions.flatMap((s) => (s.fixedPoint ? [s.fixedPoint] : [])),
+  };
+}
+
+function fluidGetter(opts: ComputeOptions): (id: FluidId) => Fluid {
+  const g = opts.getFluid ?? thermoGetFluid;
+  return (id) => {
+    try {
+      return g(id);
+    } catch (err) {
+      throw new PlantError("FLUID_NOT_LOADED", err instanceof Error ? err.message : String(err), "plant.circuits.refrigerant");
+    }
+  };
+}
+
+function circuitContext(model: FacilityModel, getFluid: (id: FluidId) => Fluid) {
+  return {
+    plant: model.plant,
+    ambient: ambientOf(model.site),
+    rooms: new Map(model.rooms.map((r) => [r.id, { setPointC: r.setPointC, rhPct: r.rhPct }])),
+    getFluid,
+  };
+}
+
+/** A small FNV-1a hash of a string, as 8 hex digits (the memo key; not for security). */
+export function hashString(s: string): string {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < s.length; i++) {
+    h ^= s.charCodeAt(i);
+    h = Math.imul(h, 0x01000193);
+  }
+  return (h >>> 0).toString(16).padStart(8, "0");
+}
+
+export interface FacilityEngine {
+  /** As `computeFacility`, reusing rooms and circuits whose inputs hash the same as last time. */
+  compute(model: FacilityModel): FacilityResult;
+  /** How many rooms and circuits the last `compute` actually recomputed. */
+  readonly lastStats: { roomsComputed: number; circuitsComputed: number };
+}
+
+/**
+ * Incremental `computeFacility`: a memo keyed by input hash. A room's key covers the site,
+ * ledger and plant options, the room, its evaporators, its doors and the set points of
+ * the rooms its surfaces and doors face; a circuit's key covers its inputs, the condensers,
+ * ambient, and the sized evaporators and cascade heat it serves. Only what an edit reaches
+ * is recomputed; the results equal a full `computeFacility`. Unchanged objects (same
+ * reference, as immutable editors keep them) are not even re-serialised.
+ */
+export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine {
+  const getFluid = fluidGetter(opts);
+  let roomMemo = new Map<string, RoomSolution>();
+  let circuitMemo = new Map<string, { result: CircuitResult | undefined; warnings: PlantWarning[] }>();
+  const hashes = new WeakMap<object, string>();
+  const hashOf = (o: object) => {
+    let k = hashes.get(o);
+    if (k === undefined) {
+      k = hashString(JSON.stringify(o));
+      hashes.set(o, k);
+    }
+    return k;
+  };
+  const stats = { roomsComputed: 0, circuitsComputed: 0 };
+  return {
+    get lastStats() {
+      return { ...stats };
+    },
+    compute(model) {
+      stats.roomsComputed = 0;
+      stats.circuitsComputed = 0;
+      const lctx = contextFromParsed(ledgerPart(model));
+      const byRoom = evaporatorsByRoom(model.plant);
+      const globalKey = hashString(JSON.stringify([model.site, model.options, model.plant.options]));
+      const faces = new Map(model.rooms.map((r) => [r.id, `${r.setPointC}/${r.rhPct}`]));
+      const nextRooms = new Map<string, RoomSolution>();
+      const solutions = model.rooms.map((room, i) => {
+        const evs = byRoom.get(room.id) ?? [];
+        const doors = lctx.doorsByRoom.get(room.id) ?? [];
+        const faced: string[] = [];
+        for (const s of room.surfaces) if (typeof s.otherSide === "object") faced.push(faces.get(s.otherSide.roomId) ?? "");
+        for (const d of doors) for (const side of d.door.sides) faced.push(faces.get(side) ?? side);
+        const key = [globalKey, i, hashOf(room), evs.map(hashOf).join(","), doors.map((d) => hashOf(d.door)).join(","), faced.join(",")].join("|");
+        let sol = roomMemo.get(key);
+        if (!sol) {
+          sol = solveRoom(room, i, evs, lctx, model.plant);
+          stats.roomsComputed++;
+        }
+        nextRooms.set(key, sol);
+        return sol;
+      });
+      roomMemo = nextRooms;
+      const results = solutions.map((s) => s.result);
+      const sized = solutions.flatMap((s) => s.sized);
+      const cctx = circuitContext(model, getFluid);
+      const prep = preparePlant(model.plant);
+      const plantKey = hashString(JSON.stringify([cctx.ambient, model.plant.options, model.plant.condensers]));
+      const warnings = evaporatorWarnings(sized, cctx.rooms);
+      const done = new Map<string, CircuitResult>();
+      const nextCircuits = new Map<string, { result: CircuitResult | undefined; warnings: PlantWarning[] }>();
+      const sizedByCircuit = new Map<string, EvaporatorSizing[]>();
+      for (const s of sized) {
+        const list = sizedByCircuit.get(s.circuitId);
+        if (list) list.push(s);
+        else sizedByCircuit.set(s.circuitId, [s]);
+      }
+      for (const c of cascadeOrder(model.plant.circuits)) {
+        const evs = sizedByCircuit.get(c.id) ?? [];
+        const lows = prep.lowStages.get(c.id) ?? [];
+        const key = hashString(
+          JSON.stringify([
+            plantKey,
+            prep.circuitIndex.get(c.id),
+            c,
+            evs.map((e) => [e.id, prep.evapIndex.get(e.id), e.dutyW, e.tdK, e.feed, cctx.rooms.get(e.roomId)]),
+            lows.map((l) => [l.id, done.get(l.id)?.heatRejectedW ?? 0]),
+          ]),
+        );
+        let entry = circuitMemo.get(key);
+        if (!entry) {
+          const w: PlantWarning[] = [];
+          entry = { result: computeCircuit(c, evs, done, cctx, prep, w), warnings: w };
+          stats.circuitsComputed++;
+        }
+        nextCircuits.set(key, entry);
+        warnings.push(...entry.warnings);
+        if (entry.result) done.set(c.id, entry.result);
+      }
+      circuitMemo = nextCircuits;
+      const circuits = model.plant.circuits.map((c) => done.get(c.id)).filter((r): r is CircuitResult => r !== undefined);
+      const plant = assemblePlant(sized, circuits, warnings, model.plant);
+      plant.warnings.unshift(...roomWarnings(model, results, byRoom));
+      return {
+        ledger: aggregate(lctx, results),
+        plant,
+        fixedPoint: fixedPointSummary(model, solutions),
+        engineVersion: PLANT_ENGINE_VERSION,
+      };
+    },
+  };
+}
