@@ -20,6 +20,8 @@ import type { Fluid, FluidId, FluidMeta } from "./types";
 
 export * from "./types";
 export { GWP_SOURCE } from "./meta";
+export { phChart, type PhChart, type PhChartOptions, type PhPoint } from "./chart";
+export { evaluateQuery, fluidIdSchema, stateQuerySchema, type StateAnswer, type StateQuery } from "./schema";
 
 const PURE_IDS = Object.keys(pureFluidMeta) as PureFluidId[];
 
