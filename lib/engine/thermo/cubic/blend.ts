@@ -265,30 +265,34 @@ export class CubicBlend implements Fluid {
     return num / den;
   }
 
-  /** β ∈ [0, 1] where the interpolated series f equals target (f monotone in β), by the secant method. */
+  /** β ∈ [0, 1] where the interpolated series f equals target (f monotone in β), by the Illinois method. */
   private solveBeta(f: Float64Array, target: number): number {
     let b0 = 0;
     let f0 = f[0] - target;
     let b1 = 1;
     let f1 = f[N_BETA - 1] - target;
+    if (f0 === 0) return 0;
+    if (f1 === 0) return 1;
+    let side = 0;
     let b = f0 / (f0 - f1);
-    for (let it = 0; it < 60; it++) {
+    const tol = 1e-12 * (Math.abs(target) + 1);
+    for (let it = 0; it < 100; it++) {
+      b = b0 - (f0 * (b1 - b0)) / (f1 - f0);
       const fb = this.barycentric(f, b) - target;
-      if (Math.abs(fb) <= 1e-12 * (Math.abs(target) + 1)) break;
+      if (Math.abs(fb) <= tol || b1 - b0 < 1e-15) break;
+      // Regula falsi with the Illinois modification (Dowell & Jarratt, BIT 11, 1971): halving the
+      // retained end's value keeps convergence superlinear on curved h(β).
       if (fb * f0 < 0) {
         b1 = b;
         f1 = fb;
+        if (side === -1) f0 /= 2;
+        side = -1;
       } else {
         b0 = b;
         f0 = fb;
+        if (side === 1) f1 /= 2;
+        side = 1;
       }
-      // Regula falsi on the bracket; the curves are close to straight, so it converges in a few steps.
-      const next = b0 - (f0 * (b1 - b0)) / (f1 - f0);
-      if (Math.abs(next - b) < 1e-15) {
-        b = next;
-        break;
-      }
-      b = next;
     }
     return b;
   }
