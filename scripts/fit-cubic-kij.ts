@@ -3,7 +3,7 @@
  * binary bubble pressures in lib/engine/thermo/cubic/fixtures/coolprop-8.0.0.json (CoolProp's
  * multi-fluid mixture model with published binary parameters), k_ij(T) linear in T: golden-section
  * search on the squared ln(P_model/P_ref) at each temperature, then a straight line in T.
- * A second stage refits R32/R1234yf to the R448A and R449A bubble/dew pressures (blend overrides). Prints the k_ij table used in cubic/blends.ts.
+ * A second stage refits R32/R1234yf to the R448A and R449A bubble/dew pressures (blend overrides). Prints the k_ij table used in cubic/blend-defs.ts.
  * Run: npx tsx scripts/fit-cubic-kij.ts
  */
 import { COMPONENTS, type ComponentId } from "@/lib/engine/thermo/cubic/components";
