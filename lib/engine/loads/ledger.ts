@@ -204,6 +204,26 @@ function component(
   return c;
 }
 
+/** Pushes a load that runs `hoursPerDay` at `powerWhileOnW` and adds it to the hourly profile. */
+function scheduled(
+  components: LoadComponent[],
+  hourly: number[],
+  kind: LoadComponentKind,
+  label: string,
+  powerWhileOnW: number,
+  hoursPerDay: number,
+  startHour: number | undefined,
+  method: string,
+  source: string,
+  inputs: Record<string, number | string>,
+  formula: string,
+): void {
+  const energyWh = powerWhileOnW * hoursPerDay;
+  inputs.hoursPerDay = hoursPerDay;
+  components.push(component(kind, label, energyWh / 24, 0, { method, source, inputs, formula }));
+  spreadScheduled(hourly, energyWh, hoursPerDay, startHour);
+}
+
 function requireFinite(value: number, field: string, what: string): void {
   if (!Number.isFinite(value) || value < 0) fail(field, `${what} must be a finite number ≥ 0 (got ${value})`);
 }
@@ -219,7 +239,8 @@ function packagingMassKg(p: PackagingInput, productKg: number): number {
   return (p.massFractionOfProduct ?? 0) * productKg;
 }
 
-const round = (x: number, digits = 4) => Number(x.toPrecision(digits));
+/** Trace values are kept at full precision; the UI formats them. */
+const round = (x: number) => x;
 
 // ---------------------------------------------------------------------------------------------
 
@@ -668,25 +689,10 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   }
 
   // Internal loads --------------------------------------------------------------------------------
-  const scheduled = (
-    kind: LoadComponentKind,
-    label: string,
-    powerWhileOnW: number,
-    hoursPerDay: number,
-    startHour: number | undefined,
-    method: string,
-    source: string,
-    inputs: Record<string, number | string>,
-    formula: string,
-  ) => {
-    const energyWh = powerWhileOnW * hoursPerDay;
-    components.push(component(kind, label, energyWh / 24, 0, { method, source, inputs: { ...inputs, hoursPerDay }, formula }));
-    spreadScheduled(hourly, energyWh, hoursPerDay, startHour);
-  };
 
   if (room.people && room.people.count > 0) {
     const perPersonW = 272 - 6 * tRoom;
-    scheduled(
+    scheduled(components, hourly,
       "people",
       "people",
       room.people.count * perPersonW,
@@ -701,22 +707,22 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   if (room.lights) {
     const l = room.lights;
     const w = l.powerW ?? (l.wPerM2 as number) * floorAreaM2;
-    scheduled("lights", "lights", w, l.hoursPerDay, l.startHour, "Lighting heat", HANDBOOK, { powerW: round(w), wPerM2: l.wPerM2 ?? "—", floorAreaM2: round(floorAreaM2) }, "q = P·h/24");
+    scheduled(components, hourly, "lights", "lights", w, l.hoursPerDay, l.startHour, "Lighting heat", HANDBOOK, { powerW: round(w), wPerM2: l.wPerM2 ?? "—", floorAreaM2: round(floorAreaM2) }, "q = P·h/24");
   }
   for (const m of room.machinery) {
-    scheduled("machinery", m.label, m.powerW, m.hoursPerDay, m.startHour, "Machinery input power as heat", HANDBOOK, { powerW: m.powerW }, "q = P·h/24");
+    scheduled(components, hourly, "machinery", m.label, m.powerW, m.hoursPerDay, m.startHour, "Machinery input power as heat", HANDBOOK, { powerW: m.powerW }, "q = P·h/24");
   }
   if (room.forklifts && room.forklifts.count > 0) {
     const f = room.forklifts;
-    scheduled("forklifts", "forklifts", f.count * f.powerWEach, f.hoursPerDay, f.startHour, "Forklift heat", HANDBOOK, { count: f.count, powerWEach: f.powerWEach }, "q = n·P·h/24");
+    scheduled(components, hourly, "forklifts", "forklifts", f.count * f.powerWEach, f.hoursPerDay, f.startHour, "Forklift heat", HANDBOOK, { count: f.count, powerWEach: f.powerWEach }, "q = n·P·h/24");
   }
   if (room.batteryCharging) {
     const bc = room.batteryCharging;
-    scheduled("batteryCharging", "battery charging", bc.heatW, bc.hoursPerDay, bc.startHour, "Battery-charging heat released in the room", "common practice", { heatW: bc.heatW }, "q = P·h/24");
+    scheduled(components, hourly, "batteryCharging", "battery charging", bc.heatW, bc.hoursPerDay, bc.startHour, "Battery-charging heat released in the room", "common practice", { heatW: bc.heatW }, "q = P·h/24");
   }
   room.heaters.forEach((h, j) => {
     const w = h.powerW * h.fractionToRoom;
-    scheduled(
+    scheduled(components, hourly,
       "heater",
       h.label ?? `${h.kind} heater`,
       w,
@@ -734,7 +740,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   requireFinite(fans.hoursPerDay, `${at}.evaporatorFans.hoursPerDay`, "evaporator fan hours");
   if (fans.hoursPerDay > 24) fail(`${at}.evaporatorFans.hoursPerDay`, "must be between 0 and 24 h/day");
   if (fans.powerW > 0) {
-    scheduled("evaporatorFans", "evaporator fans", fans.powerW, fans.hoursPerDay, undefined, "Evaporator fan motor heat (all input inside the room)", HANDBOOK, { powerW: fans.powerW }, "q = P·h/24");
+    scheduled(components, hourly, "evaporatorFans", "evaporator fans", fans.powerW, fans.hoursPerDay, undefined, "Evaporator fan motor heat (all input inside the room)", HANDBOOK, { powerW: fans.powerW }, "q = P·h/24");
   }
   const d = room.defrost;
   requireFinite(d.heaterW, `${at}.defrost.heaterW`, "defrost heater power");

@@ -23,11 +23,20 @@ const hoursPerDay = range(0, 24, "h/day");
 const fraction = range(0, 1);
 const powerW = range(0, 1e8, "W");
 const hourOfDay = z.number().int("must be a whole hour 0–23").min(0, "must be between 0 and 23").max(23, "must be between 0 and 23");
-/** 24 non-negative values, one per hour starting at 00:00. */
+/**
+ * 24 non-negative values, one per hour starting at 00:00. Checked in one pass over the array
+ * (not per element) because door and arrival schedules dominate validation time otherwise.
+ */
 const byHour = (unit: string) =>
   z
-    .array(range(0, 1e9, unit))
-    .length(24, "must list exactly 24 hourly values (00:00 … 23:00)");
+    .array(z.number())
+    .length(24, "must list exactly 24 hourly values (00:00 … 23:00)")
+    .superRefine((values, ctx) => {
+      for (let h = 0; h < values.length; h++) {
+        const v = values[h];
+        if (!(v >= 0 && v <= 1e9)) ctx.addIssue({ code: "custom", path: [h], message: `must be between 0 and 1e9 ${unit}` });
+      }
+    });
 
 export const siteSchema = z
   .object({
