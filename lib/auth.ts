@@ -1,13 +1,13 @@
 import "server-only";
 import NextAuth, { CredentialsSignin } from "next-auth";
 import Credentials from "next-auth/providers/credentials";
-import { and, eq, gt, isNull } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import bcrypt from "bcryptjs";
 import { z } from "zod";
 import { db } from "@/db/client";
-import { emailTokens, sessions, users } from "@/db/schema";
+import { sessions, users } from "@/db/schema";
 import { env } from "./env";
-import { hashToken } from "./tokens";
+import { consumeEmailToken } from "./email-tokens";
 import { clientKeyOf, recordSignInAttempt, signInAllowed } from "./rate-limit";
 import { audit } from "./audit";
 
@@ -36,23 +36,6 @@ async function openSession(userId: string, request: Request): Promise<string> {
     })
     .returning({ id: sessions.id });
   return row.id;
-}
-
-/** Consumes a single-use e-mail token of a purpose; returns its user id or null. */
-export async function consumeEmailToken(token: string, purpose: "signin_link" | "password_reset"): Promise<string | null> {
-  const [row] = await db
-    .update(emailTokens)
-    .set({ usedAt: new Date() })
-    .where(
-      and(
-        eq(emailTokens.tokenHash, hashToken(token)),
-        eq(emailTokens.purpose, purpose),
-        isNull(emailTokens.usedAt),
-        gt(emailTokens.expiresAt, new Date()),
-      ),
-    )
-    .returning({ userId: emailTokens.userId });
-  return row?.userId ?? null;
 }
 
 export const { handlers, auth, signIn, signOut } = NextAuth({

@@ -2,22 +2,16 @@ import "server-only";
 import { eq } from "drizzle-orm";
 import bcrypt from "bcryptjs";
 import { db } from "@/db/client";
-import { emailTokens, sessions, users } from "@/db/schema";
-import { newToken } from "@/lib/tokens";
+import { sessions, users } from "@/db/schema";
+import { TOKEN_MINUTES } from "@/lib/email-tokens";
 
-export const LINK_MINUTES = 15;
-export const RESET_MINUTES = 60;
+export { issueEmailToken } from "@/lib/email-tokens";
+export const LINK_MINUTES = TOKEN_MINUTES.signin_link;
+export const RESET_MINUTES = TOKEN_MINUTES.password_reset;
 
 export async function findUserByEmail(email: string) {
   const [u] = await db.select().from(users).where(eq(users.email, email)).limit(1);
   return u ?? null;
-}
-
-export async function issueEmailToken(userId: string, purpose: "signin_link" | "password_reset"): Promise<string> {
-  const { token, hash } = newToken();
-  const minutes = purpose === "signin_link" ? LINK_MINUTES : RESET_MINUTES;
-  await db.insert(emailTokens).values({ userId, purpose, tokenHash: hash, expiresAt: new Date(Date.now() + minutes * 60_000) });
-  return token;
 }
 
 export function hashPassword(password: string): Promise<string> {

@@ -1,7 +1,7 @@
 import { route } from "@/lib/api";
 import { AppError } from "@/lib/errors";
 import { audit } from "@/lib/audit";
-import { consumeEmailToken } from "@/lib/auth";
+import { consumeEmailToken } from "@/lib/email-tokens";
 import { resetSchema } from "@/features/auth/schema";
 import { setPassword } from "@/features/auth/queries";
 

@@ -1,0 +1,37 @@
+import { defineConfig } from "@playwright/test";
+import path from "node:path";
+
+const port = Number(process.env.TEST_PORT ?? 3210);
+const baseURL = `http://localhost:${port}`;
+
+export default defineConfig({
+  testDir: "tests/e2e",
+  outputDir: ".run/test/playwright",
+  fullyParallel: false,
+  workers: 1,
+  retries: 0,
+  timeout: 60_000,
+  expect: { timeout: 10_000 },
+  reporter: [["list"], ["json", { outputFile: path.join(".run/test", "e2e-report.json") }]],
+  use: {
+    baseURL,
+    trace: "retain-on-failure",
+    screenshot: "only-on-failure",
+    launchOptions: {
+      executablePath: "/usr/bin/chromium",
+      args: ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+    },
+  },
+  projects: [
+    { name: "setup", testMatch: /auth\.setup\.ts/ },
+    { name: "e2e", testMatch: /.*\.spec\.ts/, dependencies: ["setup"] },
+  ],
+  webServer: {
+    command: `node_modules/.bin/next start -p ${port}`,
+    url: `${baseURL}/api/v1/health`,
+    reuseExistingServer: false,
+    timeout: 120_000,
+    stdout: "ignore",
+    stderr: "pipe",
+  },
+});

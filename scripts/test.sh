@@ -1,0 +1,68 @@
+#!/usr/bin/env bash
+# npm test: the whole suite — vitest unit tests, integration tests against a real PostgreSQL
+# (a fresh database per run, cloned from a migrated template), and Playwright browser tests in
+# Debian's chromium against `next start`. Prints one "N passed, N failed" line at the end.
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+set +e
+
+export PGPORT="${TEST_PGPORT:-54339}"          # a cluster apart from the demo's
+export RIMEPLAN_PG_DIR="${RIMEPLAN_TEST_PG_DIR:-}"
+[ -n "$RIMEPLAN_PG_DIR" ] || unset RIMEPLAN_PG_DIR
+export SMTP_PORT="${TEST_SMTP_PORT:-2535}"
+export RIMEPLAN_RUN_DIR="$ROOT/.run/test"
+export MAIL_CATCHER_DIR="$RIMEPLAN_RUN_DIR/mail"
+export TEST_PORT="${TEST_PORT:-3210}"
+export LOG_LEVEL="${LOG_LEVEL:-warn}"
+mkdir -p "$RIMEPLAN_RUN_DIR"
+set -e
+ensure_apt postgresql postgresql-client chromium
+ensure_node_modules
+# A separate cluster folder for tests, so the demo's data is never touched.
+if [ -z "${RIMEPLAN_PG_DIR:-}" ]; then export RIMEPLAN_PG_DIR="$(pg_dir)-test"; fi
+pg_start
+rm -rf "$MAIL_CATCHER_DIR"; smtp_stop; smtp_start
+trap 'smtp_stop' EXIT
+set +e
+
+RUN_ID="$(date +%s)_$$"
+export ADMIN_DATABASE_URL="postgres://postgres@127.0.0.1:$PGPORT/postgres"
+export TEMPLATE_DB="rimeplan_template"
+
+# Template database: migrated once per run, then cloned per suite (fast and always fresh).
+psql_admin -d postgres -c "drop database if exists $TEMPLATE_DB with (force)" >/dev/null
+psql_admin -d postgres -c "create database $TEMPLATE_DB" >/dev/null
+DATABASE_URL="postgres://postgres@127.0.0.1:$PGPORT/$TEMPLATE_DB" node_modules/.bin/tsx scripts/migrate.ts || exit 1
+# Old per-run databases from earlier runs are dropped.
+for db in $(psql_admin -d postgres -c "select datname from pg_database where datname like 'rimeplan\\_t\\_%'"); do
+  psql_admin -d postgres -c "drop database if exists \"$db\" with (force)" >/dev/null
+done
+
+results="$RIMEPLAN_RUN_DIR/results"; rm -rf "$results"; mkdir -p "$results"
+status=0
+
+log "unit tests"
+node_modules/.bin/vitest run --project unit --reporter=default --reporter=json --outputFile.json="$results/unit.json" || status=1
+
+log "integration tests (PostgreSQL on 127.0.0.1:$PGPORT)"
+node_modules/.bin/vitest run --project integration --reporter=default --reporter=json --outputFile.json="$results/integration.json" || status=1
+
+log "browser tests: building the app"
+E2E_DB="rimeplan_t_e2e_$RUN_ID"
+psql_admin -d postgres -c "create database $E2E_DB template $TEMPLATE_DB" >/dev/null
+export DATABASE_URL="postgres://postgres@127.0.0.1:$PGPORT/$E2E_DB"
+node_modules/.bin/tsx seeds/demo.ts || status=1
+export AUTH_SECRET="test-secret-$(head -c 16 /dev/urandom | base64 | tr -d '\n/+=')"
+export AUTH_TRUST_HOST=true APP_URL="http://localhost:$TEST_PORT" RIMEPLAN_DEV_MAIL=1
+export SIGNIN_MAX_ATTEMPTS=5
+if node_modules/.bin/next build >"$RIMEPLAN_RUN_DIR/build.log" 2>&1; then
+  log "browser tests (chromium at /usr/bin/chromium)"
+  node_modules/.bin/playwright test 2>&1 | tee "$RIMEPLAN_RUN_DIR/e2e.log"
+  [ "${PIPESTATUS[0]}" = 0 ] || status=1
+  [ -f "$RIMEPLAN_RUN_DIR/e2e-report.json" ] && cp "$RIMEPLAN_RUN_DIR/e2e-report.json" "$results/e2e.json"
+else
+  tail -60 "$RIMEPLAN_RUN_DIR/build.log"; log "next build failed"; status=1
+fi
+
+node_modules/.bin/tsx scripts/test-summary.ts "$results"
+exit $status
