@@ -37,6 +37,62 @@ describe("R744 (Span & Wagner 1996)", async () => {
     expect(rel(st.liquid.densityKgM3, 26777.277860217495 * 0.0440098)).toBeLessThan(1e-6);
   });
 
+  it("saturation and superheated states against the NIST-derived R744 tables", () => {
+    // Ohio University R744 property tables (source: NIST Chemistry WebBook), saturation
+    // table −20…5 °C: −20 °C 1.9696 MPa, h_f 154.45, h_fg 282.44, s_g 1.9485;
+    // −10 °C 2.6487 MPa, h_f 176.52, h_fg 258.62, s_g 1.8985 (kJ/kg, kJ/(kg·K), IIR).
+    for (const [tC, p, hf, hfg, sg] of [
+      [-20, 1.9696e6, 154.45e3, 282.44e3, 1948.5],
+      [-10, 2.6487e6, 176.52e3, 258.62e3, 1898.5],
+    ]) {
+      const s = co2.saturationAtT(C + tC);
+      expect(rel(s.pDewPa, p)).toBeLessThan(0.005);
+      expect(rel(s.liquid.hJkg, hf)).toBeLessThan(0.01);
+      expect(rel(s.vapour.hJkg - s.liquid.hJkg, hfg)).toBeLessThan(0.01);
+      expect(rel(s.vapour.sJkgK, sg)).toBeLessThan(0.01);
+    }
+    // Same tables, superheated vapour: 2 MPa 0 °C h 460.00 s 2.0341; 3 MPa 10 °C h 455.98
+    // s 1.9567; 5 MPa 40 °C h 467.13 s 1.9200.
+    for (const [p, tC, h, sv] of [
+      [2e6, 0, 460.0e3, 2034.1],
+      [3e6, 10, 455.98e3, 1956.7],
+      [5e6, 40, 467.13e3, 1920.0],
+    ]) {
+      const st = co2.statePT(p, C + tC);
+      expect(Math.abs(st.hJkg - h)).toBeLessThan(0.001 * h);
+      expect(Math.abs(st.sJkgK - sv)).toBeLessThan(0.001 * sv);
+    }
+  });
+
+  it("cascade low stage 2 → 3 MPa and compression to 5 MPa: isentropic rise and COP within 1 %", () => {
+    // NIST-derived R744 superheated table (as reproduced in "CO2 - Superheated vapor",
+    // 2/3/5 MPa): saturated vapour at 2 MPa h1 = 436.85, s1 = 1.9461; at 3 MPa the
+    // 0/10/20 °C rows (h 442.22/455.98/468.46, s 1.9072/1.9567/2.0001); at 5 MPa the
+    // 30/40/50 °C rows (h 451.44/467.13/481.15, s 1.8691/1.9200/1.9641). Ohio University
+    // saturation table: h_f −6 °C 185.71 (2.9632 MPa), −5 °C 188.05 (3.0459 MPa).
+    // h2s is read off the published rows by quadratic interpolation in s at s1, h3 by linear
+    // interpolation in pressure at 3 MPa.
+    const quad = (x: number, xs: number[], ys: number[]) =>
+      ys.reduce((acc, y, i) => {
+        let w = 1;
+        for (let j = 0; j < xs.length; j++) if (j !== i) w *= (x - xs[j]) / (xs[i] - xs[j]);
+        return acc + w * y;
+      }, 0);
+    const h1Pub = 436.85e3;
+    const s1Pub = 1946.1;
+    const h2s3Pub = quad(s1Pub, [1907.2, 1956.7, 2000.1], [442.22e3, 455.98e3, 468.46e3]);
+    const h2s5Pub = quad(s1Pub, [1869.1, 1920.0, 1964.1], [451.44e3, 467.13e3, 481.15e3]);
+    const h3Pub = 185.71e3 + ((188.05e3 - 185.71e3) * (3.0 - 2.9632)) / (3.0459 - 2.9632);
+    const s1 = co2.saturationAtP(2e6).vapour;
+    const h3 = co2.saturationAtP(3e6).liquid.hJkg;
+    const h2s3 = co2.statePS(3e6, s1.sJkgK).hJkg;
+    const h2s5 = co2.statePS(5e6, s1.sJkgK).hJkg;
+    expect(rel(s1.hJkg, h1Pub)).toBeLessThan(0.001);
+    expect(rel(h2s3 - s1.hJkg, h2s3Pub - h1Pub)).toBeLessThan(0.01);
+    expect(rel(h2s5 - s1.hJkg, h2s5Pub - h1Pub)).toBeLessThan(0.01);
+    expect(rel((s1.hJkg - h3) / (h2s3 - s1.hJkg), (h1Pub - h3Pub) / (h2s3Pub - h1Pub))).toBeLessThan(0.01);
+  });
+
   it("supercritical state with the non-analytic terms (CoolProp hs_anchor point)", () => {
     // dev/fluids/CarbonDioxide.json EOS[0].STATES.hs_anchor: T = 334.54102 K,
     // ρ = 9562.41567 mol/m³, p = 12.034846936 MPa.
