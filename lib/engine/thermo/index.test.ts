@@ -41,6 +41,8 @@ describe("fluid registry", () => {
     const f = await loadFluid("R290");
     expect(getFluid("R290")).toBe(f);
     expect(await loadFluid("R290")).toBe(f);
+    // loading one fluid builds only that one
+    expect(() => getFluid("R717")).toThrow(/not loaded/);
     expect(() => getFluid("R999" as FluidId)).toThrow(/Unknown fluid/);
     await expect(loadFluid("R999" as FluidId)).rejects.toThrow(/Unknown fluid/);
   });
