@@ -28,6 +28,7 @@ import {
   type CircuitResult,
   type PlantWarning,
 } from "./plant/circuit";
+import { ambientOf } from "./plant/ambient";
 import { PlantError } from "./plant/errors";
 import {
   roomFeedback,
@@ -38,6 +39,11 @@ import {
 } from "./plant/evaporator";
 import { assemblePlant, computePlant, fluidsNeeded, type PlantResult } from "./plant/plant";
 import { plantInputSchema, type EvaporatorInput, type PlantInput } from "./plant/schema";
+
+export { buildSchedule } from "./plant/schedule";
+export { rerateInstalled } from "./plant/rerate";
+
+export { stullWetBulbC, ambientOf } from "./plant/ambient";
 
 export const FACILITY_SCHEMA_VERSION = 1 as const;
 export const PLANT_ENGINE_VERSION = "plant-1.0.0";
@@ -87,29 +93,6 @@ export interface ComputeOptions {
 /** Refrigerants a facility needs loaded before `computeFacility`. */
 export function facilityFluidsNeeded(model: Pick<FacilityModel, "plant">): FluidId[] {
   return fluidsNeeded(model.plant);
-}
-
-/**
- * Wet-bulb temperature from dry bulb and RH by Stull's fit (R. Stull, "Wet-bulb temperature
- * from relative humidity and air temperature", J. Appl. Meteor. Climatol. 50, 2011), stated
- * within about ±1 K for RH 5–99 % and −20…50 °C at sea-level pressure; used only when the
- * site gives RH instead of the coincident wet bulb.
- */
-export function stullWetBulbC(dryBulbC: number, rhPct: number): number {
-  const t = dryBulbC;
-  const rh = rhPct;
-  return (
-    t * Math.atan(0.151977 * Math.sqrt(rh + 8.313659)) +
-    Math.atan(t + rh) -
-    Math.atan(rh - 1.676331) +
-    0.00391838 * Math.pow(rh, 1.5) * Math.atan(0.023101 * rh) -
-    4.686035
-  );
-}
-
-export function ambientOf(site: LedgerInput["site"]): Ambient {
-  const wetBulbC = site.coincidentWetBulbC ?? stullWetBulbC(site.designDryBulbC, site.designRH ?? 50);
-  return { dryBulbC: site.designDryBulbC, wetBulbC: Math.min(wetBulbC, site.designDryBulbC) };
 }
 
 function ledgerPart(m: FacilityModel): LedgerInput {

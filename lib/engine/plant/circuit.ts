@@ -72,6 +72,11 @@ export interface CircuitResult {
   /** Low-stage circuits whose heat this circuit takes through a cascade exchanger. */
   cascadeFromCircuitIds: string[];
   rejectsTo: { kind: "condenser" | "circuit"; id: string };
+  compressor: { type: CircuitInput["compressor"]["type"]; units: number; standbyUnits: number; motorEfficiency: number };
+  /** Stable schedule tags of the circuit's own items. */
+  scheduleTags: { compressor: string; intercooler: string; separator: string; cascadeHx: string };
+  /** Pumped-feed evaporators on this circuit (their separator / low-pressure receiver). */
+  pumpedEvaporatorIds: string[];
   suctionC: number;
   /** Condensing temperature, or the gas-cooler outlet temperature when transcritical, °C. */
   condensingC: number;
@@ -522,6 +527,19 @@ function computeOneCircuit(
     evaporatorIds: evaps.map((e) => e.id),
     cascadeFromCircuitIds: cascades.map((x) => x.id),
     rejectsTo: hr.to === "condenser" ? { kind: "condenser", id: hr.condenserId } : { kind: "circuit", id: hr.circuitId },
+    compressor: {
+      type: c.compressor.type,
+      units: c.compressor.units,
+      standbyUnits: c.compressor.standbyUnits,
+      motorEfficiency: c.compressor.motorEfficiency,
+    },
+    scheduleTags: {
+      compressor: c.tags?.compressor ?? `CP-${c.tag}`,
+      intercooler: c.tags?.intercooler ?? `IC-${c.tag}`,
+      separator: c.tags?.separator ?? `LPR-${c.tag}`,
+      cascadeHx: c.tags?.cascadeHx ?? `CHX-${c.tag}`,
+    },
+    pumpedEvaporatorIds: pumped.map((e) => e.id),
     suctionC,
     condensingC: sink.condensingC,
     intermediateC,
