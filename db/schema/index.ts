@@ -1,3 +1,4 @@
 export * from "./auth";
 export * from "./workspaces";
 export * from "./facilities";
+export * from "./revisions";

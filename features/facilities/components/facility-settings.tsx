@@ -1,6 +1,5 @@
 "use client";
 import { useState } from "react";
-import Link from "next/link";
 import { useMutation } from "@tanstack/react-query";
 import { Field } from "@/components/form/field";
 import { api, ApiError } from "@/lib/api-client";
@@ -33,19 +32,6 @@ export function FacilitySettings({ ws, facility: initial, canEdit, unitSystem }:
   });
   return (
     <main className="flex flex-col">
-      <div className="flex items-baseline gap-3 px-4 pt-3">
-        <Link href={`/w/${ws}`} className="text-xs text-accent hover:underline">
-          ← Facilities
-        </Link>
-        <h2 className="text-base font-semibold">{facility.name}</h2>
-        {facility.archived ? <span className="rounded bg-surface-3 px-1.5 text-xs text-muted">archived</span> : null}
-        <span className="text-xs text-muted">version {facility.version}</span>
-      </div>
-      <nav aria-label="Facility views" className="flex gap-1 border-b border-line px-4">
-        <span aria-current="page" className="-mb-px border-b-2 border-accent px-3 py-2 text-sm font-medium">
-          Site &amp; settings
-        </span>
-      </nav>
       <section className="max-w-2xl p-4">
         {!canEdit ? <p className="mb-3 text-xs text-muted">Read-only for your role.</p> : null}
         {status ? (

@@ -1,0 +1,7 @@
+/**
+ * The facility's views, in the order they show as tabs. A view is listed here only once it
+ * works (UI.md: show a view only once it works).
+ */
+export const FACILITY_TABS: { slug: string; label: string }[] = [
+  { slug: "settings", label: "Site & settings" },
+];
