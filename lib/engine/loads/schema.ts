@@ -5,18 +5,26 @@
  */
 import { z } from "zod";
 
-/** A number in [lo, hi] whose error message states the allowed range and unit. */
-const range = (lo: number, hi: number, unit = "") =>
-  z
+/**
+ * A number in [lo, hi] whose error message states the allowed range and unit. One check per
+ * number instead of a min/max pair (validation time matters: the ledger re-runs on every
+ * edit); the bounds are put into the JSON Schema through `meta`.
+ */
+const range = (lo: number, hi: number, unit = "") => {
+  const message = `must be between ${lo} and ${hi}${unit ? " " + unit : ""}`;
+  return z
     .number()
-    .min(lo, `must be between ${lo} and ${hi}${unit ? " " + unit : ""}`)
-    .max(hi, `must be between ${lo} and ${hi}${unit ? " " + unit : ""}`);
+    .refine((v) => v >= lo && v <= hi, message)
+    .meta({ minimum: lo, maximum: hi });
+};
 /** A number > 0 and ≤ hi. */
-const positive = (hi: number, unit = "") =>
-  z
+const positive = (hi: number, unit = "") => {
+  const message = `must be greater than 0 and at most ${hi}${unit ? " " + unit : ""}`;
+  return z
     .number()
-    .gt(0, `must be greater than 0 and at most ${hi}${unit ? " " + unit : ""}`)
-    .max(hi, `must be greater than 0 and at most ${hi}${unit ? " " + unit : ""}`);
+    .refine((v) => v > 0 && v <= hi, message)
+    .meta({ exclusiveMinimum: 0, maximum: hi });
+};
 
 const tempC = range(-80, 80, "°C");
 const hoursPerDay = range(0, 24, "h/day");
