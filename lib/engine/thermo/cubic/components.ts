@@ -4,9 +4,10 @@
  * Critical constants, acentric factors and molar masses are those of each component's
  * reference Helmholtz equation of state (named in `eos`), as CoolProp 8.0.0 reports them.
  * The fitted parameters come from `fixtures/fit_components.py` (committed, rerunnable):
- * - `mc`: Mathias–Copeman alpha coefficients (Mathias & Copeman, Fluid Phase Equilib. 13,
- *   1983), weighted least-squares fit (on ln Psat) to the alpha that makes PR reproduce the reference saturation
- *   pressure from 203 K to 0.96·Tc;
+ * - `mc`: coefficients c1…c5 of the Mathias–Copeman alpha function (Mathias & Copeman, Fluid
+ *   Phase Equilib. 13, 1983), extended from three to five terms: weighted least-squares fit
+ *   (weights that make it a fit on ln Psat) to the alpha that makes PR reproduce the
+ *   reference saturation pressure, 203 K to 0.96·Tc;
  * - `penelouxM3Mol`: Péneloux et al. (Fluid Phase Equilib. 8, 1982) constant volume shift,
  *   mean PR-minus-reference saturated-liquid volume over 230…320 K;
  * - `cp0`: ideal-gas heat capacity cp0/R = Σ a_k·(T/100 K)^k, k = 0…4, fitted over
