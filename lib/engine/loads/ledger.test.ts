@@ -81,31 +81,72 @@ describe("product pull-down on the 24-hour basis", () => {
       products: [{ commodityId: "apples", massKgPerDay: 1000, enteringTempC: 20, pullDownHours: 12, ...(arrivals ? { arrivalsByHour: arrivals } : {}) }],
     });
 
+  const productW = (r: { components: { kind: string; powerW: number }[] }) =>
+    r.components.filter((c) => c.kind === "product").reduce((a, c) => a + c.powerW, 0);
+
   it("rate basis carries the 12-h pull-down rate over the day", () => {
     // 68 707 kJ / (12·3600 s) = 1590.4 W.
     const r = ledger([apples()]).rooms[0];
-    expect(r.averageLoadW).toBeCloseTo(1590.4, 0);
+    expect(productW(r)).toBeCloseTo(1590.4, 0);
     expect(r.components[0].label).toMatch(/sensible above freezing/);
   });
 
   it("daily-energy basis spreads the same energy over 24 h", () => {
     // 68 707 kJ / 86 400 s = 795.2 W.
     const r = ledger([apples()], [], { pullDownBasis: "dailyEnergy" });
-    expect(r.rooms[0].averageLoadW).toBeCloseTo(795.2, 0);
+    expect(productW(r.rooms[0])).toBeCloseTo(795.2, 0);
     expect(r.options.pullDownBasis).toBe("dailyEnergy");
   });
 
+  it("respiration of the warm intake during the pull-down", () => {
+    // Becker–Fricke for apples (f 5.6871e-4, g 2.5977, from memory) at the mean pull-down
+    // temperature (20 + 2)/2 = 11 °C = 51.8 °F: 1.6903e-6·51.8^2.5977 = 0.048005 W/kg; at the
+    // 2 °C room (35.6 °F): 0.018121 W/kg; excess 0.029884 W/kg × 1000 kg × 12 h / 24 h = 14.94 W.
+    const r = ledger([apples()]).rooms[0];
+    const resp = r.components.find((c) => c.label.includes("respiration during pull-down"))!;
+    expect(resp.powerW).toBeCloseTo(14.94, 1);
+  });
+
   it("arrivals by hour make a peak hour above the daily average", () => {
-    // All of the day's apples arrive at 06:00 and pull down over 12 h: 06:00–17:00 carry
-    // 1590.4 W each, the other hours nothing; the daily average is 795.2 W.
+    // 1000 kg/day of lean beef chilled 20 → 2 °C, all arriving at 06:00, 12-h pull-down:
+    // Chen c_u = 3.5566 kJ/(kg·K) (product.test.ts) → 64 020 kJ/day; 06:00–17:00 carry
+    // 64 020/(12·3.6) = 1481.9 W each, the other hours nothing; daily average 741.0 W.
     const arrivals = new Array(24).fill(0);
     arrivals[6] = 1;
-    const r = ledger([apples(arrivals)], [], { pullDownBasis: "dailyEnergy" }).rooms[0];
-    expect(r.peakHourW).toBeCloseTo(1590.4, 0);
+    const r = ledger(
+      [room({ setPointC: 2, products: [{ commodityId: "beef-lean", massKgPerDay: 1000, enteringTempC: 20, pullDownHours: 12, arrivalsByHour: arrivals }] })],
+      [],
+      { pullDownBasis: "dailyEnergy" },
+    ).rooms[0];
+    expect(r.averageLoadW).toBeCloseTo(741.0, 0);
+    expect(r.peakHourW).toBeCloseTo(1481.9, 0);
     expect(r.hourly[5]).toBeCloseTo(0, 9);
-    expect(r.hourly[17]).toBeCloseTo(1590.4, 0);
+    expect(r.hourly[17]).toBeCloseTo(1481.9, 0);
     expect(r.hourly[18]).toBeCloseTo(0, 9);
     expect(r.peakHourW).toBeGreaterThan(r.averageLoadW);
+  });
+
+  it("product cannot end colder than the room air", () => {
+    const bad = room({ setPointC: 2, products: [{ commodityId: "apples", massKgPerDay: 1, enteringTempC: 20, finalTempC: 0, pullDownHours: 12 }] });
+    expect(fieldOf(() => ledger([bad]))).toBe("rooms.0.products.0.finalTempC");
+  });
+
+  it("heat flowing to a colder side is reported as heat outflow", () => {
+    // Floor U 0.4 × 72 m² to ground at 10 °C from a 14 °C ripening room: 0.4·72·(10 − 14) = −115.2 W,
+    // ignored in the ledger, reported as 115.2 W of outflow; ripening heaters 2 kW for 3 h = 250 W average.
+    const r = ledger([
+      room({
+        kind: "ripening",
+        lengthM: 12,
+        widthM: 6,
+        setPointC: 14,
+        surfaces: [{ kind: "floor", uValueWm2K: 0.4, otherSide: "ground" }],
+        ripening: { chargeActive: true, respirationMultiplier: 3, heating: { powerW: 2000, hoursPerDay: 3, startHour: 5 } },
+      }),
+    ]).rooms[0];
+    expect(r.heatOutflowW).toBeCloseTo(115.2, 6);
+    expect(r.averageLoadW).toBeCloseTo(250, 6);
+    expect(r.peakHour).toBe(5);
   });
 
   it("freezing case: lean beef +5 → −18 °C in a freezer", () => {

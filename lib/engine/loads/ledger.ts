@@ -74,6 +74,11 @@ export interface RoomLoadResult {
   requiredPeakCapacityW: number;
   /** The larger of requiredCapacityW and requiredPeakCapacityW, W. */
   designCapacityW: number;
+  /**
+   * Heat flowing out of the room to colder sides or into colder product (24-h average, W):
+   * what a heat mode must supply; ignored or credited in the ledger per `colderNeighbour`.
+   */
+  heatOutflowW: number;
 }
 
 export interface LedgerTotals {
@@ -264,6 +269,10 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   const components: LoadComponent[] = [];
   const floorAreaM2 = room.lengthM * room.widthM;
   const volumeM3 = floorAreaM2 * room.heightM;
+  // Heat leaving the room to colder sides or into colder product, W (24-h average): what a
+  // heat mode would have to supply; shown whether it is ignored or credited in the ledger.
+  let heatOutflowW = 0;
+  const multiplier = room.ripening?.chargeActive ? room.ripening.respirationMultiplier : 1;
 
   // Transmission ---------------------------------------------------------------------------
   room.surfaces.forEach((s, j) => {
@@ -295,6 +304,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     const qW = transmissionW(u.uValueWm2K, areaM2, tOutC, tRoom);
     const ignored = qW < 0 && ignoreColder;
     const powerW = ignored ? 0 : qW;
+    if (qW < 0) heatOutflowW -= qW;
     const label = s.label ?? `${s.kind}${s.orientation ? " " + s.orientation : ""} to ${otherLabel}`;
     components.push(
       component(
@@ -409,6 +419,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     const runningW = dryAirKgS * (out.enthalpyJkg - air.enthalpyJkg);
     const ignored = runningW < 0 && ignoreColder;
     const share = v.hoursPerDay / 24;
+    if (runningW < 0) heatOutflowW -= runningW * share;
     const powerW = ignored ? 0 : runningW * share;
     const split = splitAirExchange(dryAirKgS * share, out, air);
     const latentW = ignored ? 0 : split.latentW;
@@ -435,6 +446,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     const field = `${at}.products.${j}`;
     const c = commodityOrFail(p.commodityId, `${field}.commodityId`);
     const tFinal = p.finalTempC ?? tRoom;
+    if (tFinal < tRoom) fail(`${field}.finalTempC`, `cannot be below the room set point (${tRoom} °C): the room air cannot cool product below itself`);
     const split = productHeatSplit(c, p.enteringTempC, tFinal);
     const basisHours = opts.pullDownBasis === "rate" ? Math.min(p.pullDownHours, 24) : 24;
     // kJ/day → W on the chosen basis: 1 kJ over `basisHours` h = 1000/(3600·basisHours) W.
@@ -449,6 +461,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
       if (kJkg === 0) continue;
       let kJ = p.massKgPerDay * kJkg;
       const ignored = kJ < 0 && ignoreColder;
+      if (kJ < 0) heatOutflowW -= (kJ * 1000) / 86400;
       if (ignored) kJ = 0;
       dailyKJ += kJ;
       components.push(
@@ -484,6 +497,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
       const massKg = packagingMassKg(pk, p.massKgPerDay);
       const cp = pk.specificHeatKJkgK ?? PACKAGING_CP_KJKGK[pk.kind];
       let kJ = packagingHeatKJ(massKg, cp, p.enteringTempC, tFinal);
+      if (kJ < 0) heatOutflowW -= (kJ * 1000) / 86400;
       if (kJ < 0 && ignoreColder) kJ = 0;
       dailyKJ += kJ;
       components.push(
@@ -502,6 +516,40 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
         ),
       );
     }
+    // Fresh produce respires faster while it is still warm: the day's intake spends the
+    // pull-down at about its mean temperature; only the excess over the room temperature is
+    // added, as the stored mass already carries respiration at the set point.
+    if ((c.group === "fruit" || c.group === "vegetable") && c.respiration && p.massKgPerDay > 0) {
+      const meanC = (p.enteringTempC + tFinal) / 2;
+      const excessWPerKg = respirationWPerKg(c, meanC, `${field}.enteringTempC`) - respirationWPerKg(c, tRoom, `${field}.commodityId`);
+      const hoursWarm = Math.min(p.pullDownHours, 24);
+      const wh = p.massKgPerDay * Math.max(0, excessWPerKg) * hoursWarm * multiplier;
+      if (wh > 0) {
+        components.push(
+          component(
+            "respiration",
+            `${c.name}: respiration during pull-down`,
+            wh / 24,
+            0,
+            {
+              method: c.respiration.kind === "fg" ? "Respiration, Becker–Fricke fit, at the mean pull-down temperature" : "Respiration, tabulated, at the mean pull-down temperature",
+              source: c.sources.respiration,
+              inputs: {
+                commodity: c.id,
+                massKgPerDay: p.massKgPerDay,
+                meanPullDownTempC: meanC,
+                excessWPerKg: round(excessWPerKg),
+                hoursWarm,
+                ripeningMultiplier: multiplier,
+              },
+              formula: "q = m·[q(T_mean) − q(T_room)]·t_pd / 24 h",
+            },
+            p.id ?? `${j}`,
+          ),
+        );
+        dailyKJ += wh * 3.6;
+      }
+    }
     const dailyWh = dailyKJ / 3.6;
     if (p.arrivalsByHour) {
       const sum = p.arrivalsByHour.reduce((a, b) => a + b, 0);
@@ -515,7 +563,6 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   });
 
   // Respiration ---------------------------------------------------------------------------------
-  const multiplier = room.ripening?.chargeActive ? room.ripening.respirationMultiplier : 1;
   room.storedProduce.forEach((s, j) => {
     const field = `${at}.storedProduce.${j}`;
     const c = commodityOrFail(s.commodityId, `${field}.commodityId`);
@@ -735,6 +782,22 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     );
   });
 
+  if (room.ripening?.heating && room.ripening.heating.powerW > 0) {
+    const hm = room.ripening.heating;
+    scheduled(
+      components,
+      hourly,
+      "heater",
+      "ripening heat mode",
+      hm.powerW,
+      hm.hoursPerDay,
+      hm.startHour,
+      "Ripening-room heaters run on the design day; their heat is removed by the coil",
+      HANDBOOK,
+      { powerW: hm.powerW },
+      "q = P·h/24",
+    );
+  }
   const fans = room.evaporatorFans;
   requireFinite(fans.powerW, `${at}.evaporatorFans.powerW`, "evaporator fan power");
   requireFinite(fans.hoursPerDay, `${at}.evaporatorFans.hoursPerDay`, "evaporator fan hours");
@@ -791,6 +854,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     peakHour,
     requiredPeakCapacityW,
     designCapacityW: Math.max(requiredCapacityW, requiredPeakCapacityW),
+    heatOutflowW,
   };
   for (const key of ["averageLoadW", "requiredCapacityW", "latentW", "peakHourW"] as const) {
     if (!Number.isFinite(result[key])) fail(at, `${key} came out non-finite: check the room's inputs`);

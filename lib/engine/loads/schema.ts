@@ -262,6 +262,8 @@ export const roomSchema = z.object({
       /** A ripening charge (ethylene-triggered) respires several times faster than storage. */
       chargeActive: z.boolean().default(true),
       respirationMultiplier: range(1, 20).default(3),
+      /** Heaters of the room's heat mode that run on the design day (their heat ends up in the room). */
+      heating: z.object({ powerW, ...scheduledLoad }).optional(),
     })
     .optional(),
   batch: batchSchema.optional(),
