@@ -86,3 +86,17 @@ describe("thermodynamic consistency of the PR evaluation (a mixture, both roots)
     expect(Math.abs(dhdP - (e.vM3Mol - t * dvdT))).toBeLessThan(1e-6 * Math.abs(e.vM3Mol) + 1e-9);
   });
 });
+
+describe("cp is continuous where a component crosses its critical temperature", () => {
+  // Smoothness, not data: alpha switches form at each component's Tc (see setTemperature).
+  const ids: ComponentId[] = ["R125", "R143a", "R134a"];
+  const mix = new PengRobinsonMixture(ids.map((i) => COMPONENTS[i]), [[0, 0, 0], [0, 0, 0], [0, 0, 0]]);
+  it.each(ids)("vapour cp across Tc of %s at 10 bar", (id) => {
+    const tc = COMPONENTS[id].tcK;
+    const a = newPhaseEval();
+    const b = newPhaseEval();
+    mix.evaluate(tc - 1e-3, 10e5, [0.44, 0.52, 0.04], VAPOUR_ROOT, false, a);
+    mix.evaluate(tc + 1e-3, 10e5, [0.44, 0.52, 0.04], VAPOUR_ROOT, false, b);
+    expect(Math.abs(b.cpJmolK / a.cpJmolK - 1)).toBeLessThan(1e-4);
+  });
+});

@@ -114,7 +114,9 @@ export class PengRobinsonMixture {
 
   /**
    * √a_i(T) = √a_c,i·(1 + Σ c_k·X^k), X = 1 − √(T/Tc) (Mathias–Copeman, here with five terms). Above Tc
-   * only the c1 term is kept, as Mathias & Copeman recommend, so that alpha stays monotone.
+   * only the c1 and c2 terms are kept: Mathias & Copeman keep c1 alone, which leaves a step in
+   * d²α/dT² and so a 1 % step in cp at each component's Tc; with c2 the second derivative is
+   * continuous and alpha stays monotone up to the 423 K limit (X ≥ −0.12 for the lowest Tc).
    */
   private setTemperature(tK: number): void {
     if (tK === this.cachedT) return;
@@ -147,9 +149,9 @@ export class PengRobinsonMixture {
         dm = dm * X + m;
         m = m * X + 1;
       } else {
-        m = 1 + mc[0] * X;
-        dm = mc[0];
-        d2m = 0;
+        m = 1 + X * (mc[0] + mc[1] * X);
+        dm = mc[0] + 2 * mc[1] * X;
+        d2m = 2 * mc[1];
       }
       const ac = this.sqrtAc[i];
       this.s[i] = ac * m;
