@@ -31,6 +31,7 @@ import {
 import { ambientOf } from "./plant/ambient";
 import { PlantError } from "./plant/errors";
 import {
+  feedbackWhPerDayPerW,
   roomFeedback,
   sizeRoomEvaporators,
   solveDutyFixedPoint,
@@ -95,8 +96,12 @@ export function facilityFluidsNeeded(model: Pick<FacilityModel, "plant">): Fluid
   return fluidsNeeded(model.plant);
 }
 
+/** The ledger's own part of the document: everything but the version and the plant. */
 function ledgerPart(m: FacilityModel): LedgerInput {
-  return { site: m.site, rooms: m.rooms, doors: m.doors, options: m.options };
+  const { schemaVersion, plant, ...ledger } = m;
+  void schemaVersion;
+  void plant;
+  return ledger;
 }
 
 interface RoomSolution {
@@ -120,10 +125,20 @@ function solveRoom(room: RoomInput, index: number, evs: EvaporatorInput[], lctx:
     last = { x, result, sized };
     return result.designCapacityW;
   };
+  const whPerW = feedbackWhPerDayPerW(room, evs);
   const fp = solveDutyFixedPoint(f, {
     tolerance: plant.options.fixedPointTolerance,
     maxIterations: plant.options.fixedPointMaxIterations,
     field: `rooms[${index}]`,
+    // The ledger turns daily energy into capacity by (1 + SF)/run hours, or — when the peak
+    // hour governs — spreads fans and defrost evenly, (1 + SF)/24 per hour. The prediction
+    // only saves calls: convergence is still checked against the ledger itself.
+    predict: (f0) => {
+      const r = last!.result;
+      const perWh = (1 + r.safetyFactor) / (r.requiredCapacityW >= r.requiredPeakCapacityW ? r.runHoursPerDay : 24);
+      const slope = perWh * whPerW;
+      return slope < 1 ? f0 / (1 - slope) : undefined;
+    },
   });
   if (!last || last.x !== fp.valueW) f(fp.valueW);
   // The evaporators are sized for the converged duty; the ledger is the one at that duty.
@@ -277,6 +292,8 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
     return k;
   };
   const stats = { roomsComputed: 0, circuitsComputed: 0 };
+  let lastCtx: LedgerContext | undefined;
+  let lastCtxKey = "";
   return {
     get lastStats() {
       return { ...stats };
@@ -284,9 +301,22 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
     compute(model) {
       stats.roomsComputed = 0;
       stats.circuitsComputed = 0;
-      const lctx = contextFromParsed(ledgerPart(model));
+      const { schemaVersion, plant: plantInput, rooms: roomsInput, doors: doorsInput, ...shared } = model;
+      void schemaVersion;
+      void plantInput;
+      void roomsInput;
+      void doorsInput;
+      // Site, ledger options and anything else the ledger shares across rooms (e.g. custom commodities).
+      const globalKey = hashString(JSON.stringify([shared, model.plant.options]));
+      // The ledger context (site and room air by psychrometrics, door lookup) depends only on
+      // the site, the options, each room's id / set point / RH and the doors: reuse it.
+      const ctxKey = `${globalKey}|${model.rooms.map((r) => `${r.id}:${r.setPointC}/${r.rhPct}`).join(",")}|${model.doors.map(hashOf).join(",")}`;
+      if (ctxKey !== lastCtxKey || !lastCtx) {
+        lastCtx = contextFromParsed(ledgerPart(model));
+        lastCtxKey = ctxKey;
+      }
+      const lctx = lastCtx;
       const byRoom = evaporatorsByRoom(model.plant);
-      const globalKey = hashString(JSON.stringify([model.site, model.options, model.plant.options]));
       const faces = new Map(model.rooms.map((r) => [r.id, `${r.setPointC}/${r.rhPct}`]));
       const nextRooms = new Map<string, RoomSolution>();
       const solutions = model.rooms.map((room, i) => {
@@ -322,15 +352,12 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
       for (const c of cascadeOrder(model.plant.circuits)) {
         const evs = sizedByCircuit.get(c.id) ?? [];
         const lows = prep.lowStages.get(c.id) ?? [];
-        const key = hashString(
-          JSON.stringify([
-            plantKey,
-            prep.circuitIndex.get(c.id),
-            c,
-            evs.map((e) => [e.id, prep.evapIndex.get(e.id), e.dutyW, e.tdK, e.feed, cctx.rooms.get(e.roomId)]),
-            lows.map((l) => [l.id, done.get(l.id)?.heatRejectedW ?? 0]),
-          ]),
-        );
+        let key = `${plantKey}|${prep.circuitIndex.get(c.id)}|${hashOf(c)}|`;
+        for (const e of evs) {
+          const room = cctx.rooms.get(e.roomId);
+          key += `${e.id}@${prep.evapIndex.get(e.id)}:${e.dutyW}:${e.tdK}:${hashOf(e.feed)}:${room?.setPointC}/${room?.rhPct},`;
+        }
+        for (const l of lows) key += `<${l.id}:${done.get(l.id)?.heatRejectedW ?? 0}`;
         let entry = circuitMemo.get(key);
         if (!entry) {
           const w: PlantWarning[] = [];

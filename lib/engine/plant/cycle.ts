@@ -143,7 +143,7 @@ function compress(fluid: Fluid, inlet: PhaseProps, pOutPa: number, c: Compressor
   if (c.type === "screw") {
     const tSetK = (c.oilCooledDischargeC ?? DEFAULT_OIL_COOLED_DISCHARGE_C) + 273.15;
     // Oil cooling can take the discharge down to the set point but never into the dome.
-    const dewK = fluid.saturationAtP(pOutPa).vapour.tK;
+    const dewK = pOutPa < 0.999 * fluid.meta.criticalPressurePa ? fluid.saturationAtP(pOutPa).vapour.tK : fluid.meta.criticalTempK;
     const cooled = fluid.statePT(pOutPa, Math.max(tSetK, dewK + 1));
     if (cooled.hJkg < hAdiabatic) return { out: cooled, wJkg, qOilJkg: hAdiabatic - cooled.hJkg, etaIs, etaV, ratio };
   }

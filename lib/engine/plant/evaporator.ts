@@ -163,7 +163,8 @@ export function roomFeedback(sized: EvaporatorSizing[]): RoomFeedback {
   }
   const energetic = heaterW > 0 && perDay > 0 && heatWmin > 0;
   return {
-    evaporatorFans: { powerW: fanW, hoursPerDay: fanW > 0 ? fanWh / fanW : 24 },
+    // Clamped: the weighted mean of 24 h values can round to a hair above 24.
+    evaporatorFans: { powerW: fanW, hoursPerDay: fanW > 0 ? Math.min(24, fanWh / fanW) : 24 },
     defrost: {
       heaterW,
       minutesPerDefrost: energetic ? heatWmin / (heaterW * perDay) : minutes,
@@ -187,10 +188,17 @@ export interface FixedPointResult {
  * confirms it; a plain step is taken when the secant degenerates. Convergence means
  * |f(x) − x| ≤ tol·max(x, 1 W). A map whose slope is 1 or more (fan and defrost heat
  * growing as fast as the duty it serves) has no finite answer and throws NO_CONVERGENCE.
+ * With `predict` giving the affine map's answer from f(0), two calls usually suffice.
  */
 export function solveDutyFixedPoint(
   f: (dutyW: number) => number,
-  opts: { tolerance: number; maxIterations: number; field: string },
+  opts: {
+    tolerance: number;
+    maxIterations: number;
+    field: string;
+    /** A predicted fixed point from f(0) (e.g. from the map's known slope); tried first. */
+    predict?: (f0: number) => number | undefined;
+  },
 ): FixedPointResult {
   const check = (v: number, x: number) => {
     if (!Number.isFinite(v) || v < 0)
@@ -199,7 +207,8 @@ export function solveDutyFixedPoint(
   };
   let x0 = 0;
   let f0 = check(f(x0), x0);
-  let x1 = f0;
+  const guess = opts.predict?.(f0);
+  let x1 = guess !== undefined && Number.isFinite(guess) && guess >= f0 ? guess : f0;
   let iterations = 1;
   for (; iterations < opts.maxIterations; iterations++) {
     const f1 = check(f(x1), x1);
@@ -225,4 +234,18 @@ export function solveDutyFixedPoint(
     `fan/defrost fixed point not converged in ${opts.maxIterations} iterations (tolerance ${opts.tolerance})`,
     opts.field,
   );
+}
+
+/**
+ * Daily fan and defrost energy fed back into the room per W of design duty, Wh/(day·W):
+ * Σ fan W·h + heater W·(min/60)·defrosts·fraction for evaporators sized for 1 W. The
+ * sizing is linear in duty, so this is the exact slope of the feedback energy.
+ */
+export function feedbackWhPerDayPerW(room: RoomForSizing, evaporators: EvaporatorInput[]): number {
+  let wh = 0;
+  for (const s of sizeRoomEvaporators(room, evaporators, 1)) {
+    wh += s.fanPowerW * s.fanHoursPerDay;
+    wh += s.defrost.heaterW * (s.defrost.minutesPerDefrost / 60) * s.defrost.defrostsPerDay * s.defrost.fractionToRoom;
+  }
+  return wh;
 }
