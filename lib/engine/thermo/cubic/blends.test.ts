@@ -76,8 +76,9 @@ describe.each(IDS)("%s against CoolProp 8.0.0 (mixture model)", (id) => {
     const h3 = f.saturationAtP(pc).liquid.hJkg;
     const cop = (s1.hJkg - h3) / (s2.hJkg - s1.hJkg);
     expect(Math.abs(cop / c.cop - 1)).toBeLessThan(0.02);
-    // Isentropic enthalpy rise within 1 %.
+    // Isentropic enthalpy rise within 1 %, isentropic discharge temperature within 1.5 K.
     expect(Math.abs((s2.hJkg - s1.hJkg) / (c.h2sJkg - c.h1Jkg) - 1)).toBeLessThan(0.01);
+    expect(Math.abs(s2.tK - c.t2sK)).toBeLessThan(1.5);
   });
 
   it("normal boiling point (bubble) within 0.3 K", () => {
