@@ -185,6 +185,51 @@ function build(raw: Raw): Commodity {
   };
 }
 
+/** A user's own commodity (e.g. stored per workspace), in fractions, with its source. */
+export interface CustomCommodityInput {
+  id: string;
+  name: string;
+  group: Commodity["group"];
+  waterFraction: number;
+  proteinFraction: number;
+  initialFreezingPointC: number;
+  densityKgM3?: number;
+  frozenConductivityWmK?: number;
+  respiration?: { f: number; g: number } | { points: Array<[number, number]> };
+  /** Where the data come from (lab report, supplier sheet, handbook table …). */
+  source: string;
+}
+
+/**
+ * Builds a library entry from a user's composition data; specific heats and latent heat are
+ * derived by the same Chen (1985) / Schwartzberg relations as the built-in commodities.
+ */
+export function buildCustomCommodity(input: CustomCommodityInput): Commodity {
+  const respiration: RespirationData | undefined = input.respiration
+    ? "f" in input.respiration
+      ? { kind: "fg", f: input.respiration.f, g: input.respiration.g }
+      : { kind: "table", points: input.respiration.points }
+    : undefined;
+  const c = build({
+    id: input.id,
+    name: input.name,
+    group: input.group,
+    waterPct: input.waterFraction * 100,
+    proteinPct: input.proteinFraction * 100,
+    tfC: input.initialFreezingPointC,
+    densityKgM3: input.densityKgM3,
+    frozenConductivityWmK: input.frozenConductivityWmK,
+    respiration,
+    respirationSource: `user data: ${input.source}`,
+    compositionSource: `user data: ${input.source}`,
+  });
+  c.waterFraction = input.waterFraction;
+  c.proteinFraction = input.proteinFraction;
+  if (c.densityKgM3 !== undefined) c.sources.densityKgM3 = `user data: ${input.source}`;
+  if (c.frozenConductivityWmK !== undefined) c.sources.frozenConductivityWmK = `user data: ${input.source}`;
+  return c;
+}
+
 /** The built-in commodities, by id. */
 export const COMMODITIES: ReadonlyMap<string, Commodity> = new Map(RAW.map((r) => [r.id, build(r)]));
 

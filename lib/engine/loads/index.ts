@@ -14,6 +14,7 @@ export {
   otherSideSchema,
   ledgerOptionsSchema,
   ledgerInputSchema,
+  customCommoditySchema,
   roomKinds,
 } from "./schema";
 export type {
@@ -29,6 +30,7 @@ export type {
   LedgerInput,
   LedgerInputRaw,
   LedgerOptions,
+  RoomInputRaw,
 } from "./schema";
 export {
   computeLedger,
@@ -43,8 +45,8 @@ export type { LedgerContext, SiteContext, RoomLoadResult, LedgerResult, LedgerTo
 export type { LoadComponent, LoadComponentKind, LoadTrace } from "./types";
 export { LoadInputError } from "./errors";
 export type { LoadInputIssue } from "./errors";
-export { COMMODITIES, getCommodity, listCommodities, LATENT_HEAT_WATER_KJKG } from "./commodities";
-export type { Commodity, RespirationData } from "./commodities";
+export { COMMODITIES, getCommodity, listCommodities, buildCustomCommodity, LATENT_HEAT_WATER_KJKG } from "./commodities";
+export type { Commodity, RespirationData, CustomCommodityInput } from "./commodities";
 export { chenEnthalpyKJkg, iceFraction, productHeatSplit, PACKAGING_CP_KJKGK } from "./product";
 export { respirationWPerKg } from "./respiration";
 export { plankFreezingTimeS, phamFreezingTimeS, airSurfaceCoefficientWm2K, SHAPE_FACTORS } from "./freezing";

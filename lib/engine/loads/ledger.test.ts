@@ -208,6 +208,43 @@ describe("batch, respiration and ventilation in the ledger", () => {
   });
 });
 
+describe("a workspace's own commodity", () => {
+  it("is used for product and respiration, with properties derived from its composition", () => {
+    // Chen c_u for x_wo = 0.90 (x_s = 0.10): 4.19 − 0.230 − 0.000628 = 3.9594 kJ/(kg·K);
+    // 100 kg/day 15 → 5 °C = 3959.4 kJ/day → 3959.4e3/86400 = 45.83 W on the daily basis.
+    // Respiration with the strawberry constants f 3.6683e-4, g 3.0330 at 5 °C: 0.08494 W/kg
+    // (respiration.test.ts) × 2000 kg = 169.9 W.
+    const r = computeLedger({
+      site,
+      rooms: [
+        room({
+          setPointC: 5,
+          products: [{ commodityId: "test-berry", massKgPerDay: 100, enteringTempC: 15, pullDownHours: 24 }],
+          storedProduce: [{ commodityId: "test-berry", massKg: 2000 }],
+        }),
+      ],
+      commodities: [
+        {
+          id: "test-berry",
+          name: "Test berry",
+          group: "fruit",
+          waterFraction: 0.9,
+          proteinFraction: 0,
+          initialFreezingPointC: -1,
+          respiration: { f: 3.6683e-4, g: 3.033 },
+          source: "test data",
+        },
+      ],
+      options: { pullDownBasis: "dailyEnergy" },
+    }).rooms[0];
+    const product = r.components.find((c) => c.kind === "product")!;
+    expect(product.powerW).toBeCloseTo(45.83, 1);
+    const stored = r.components.find((c) => c.label === "Test berry: respiration")!;
+    expect(stored.powerW).toBeCloseTo(169.9, 0);
+    expect(stored.trace.source).toMatch(/user data/);
+  });
+});
+
 describe("door infiltration in the ledger", () => {
   it("charges the colder room with the stated door's load", () => {
     // The stated door of infiltration.test.ts, now at 25 °C / 50 % RH design, −20 °C / 90 % RH

@@ -1,4 +1,4 @@
-import { getCommodity, type Commodity } from "./commodities";
+import { buildCustomCommodity, getCommodity, type Commodity } from "./commodities";
 import { LoadInputError, fail, pathToField } from "./errors";
 import { airSurfaceCoefficientWm2K, phamFreezingTimeS, plankFreezingTimeS } from "./freezing";
 import {
@@ -49,6 +49,8 @@ export interface LedgerContext {
   roomIndex: ReadonlyMap<string, number>;
   /** Doors touching each room, with their index in `input.doors`. */
   doorsByRoom: ReadonlyMap<string, ReadonlyArray<{ door: DoorInput; index: number }>>;
+  /** The input's own commodities (overriding the built-in library), by id. */
+  commodities: ReadonlyMap<string, Commodity>;
 }
 
 export interface RoomLoadResult {
@@ -142,6 +144,8 @@ export function contextFromParsed(input: LedgerInput): LedgerContext {
   input.doors.forEach((door, index) => {
     for (const side of door.sides) doorsByRoom.get(side)?.push({ door, index });
   });
+  const commodities = new Map<string, Commodity>();
+  for (const c of input.commodities) commodities.set(c.id, buildCustomCommodity(c));
   return {
     input,
     options: input.options,
@@ -156,6 +160,7 @@ export function contextFromParsed(input: LedgerInput): LedgerContext {
     roomAir,
     roomIndex,
     doorsByRoom,
+    commodities,
   };
 }
 
@@ -233,8 +238,8 @@ function requireFinite(value: number, field: string, what: string): void {
   if (!Number.isFinite(value) || value < 0) fail(field, `${what} must be a finite number ≥ 0 (got ${value})`);
 }
 
-function commodityOrFail(id: string, field: string): Commodity {
-  const c = getCommodity(id);
+function commodityOrFail(id: string, field: string, ctx: LedgerContext): Commodity {
+  const c = ctx.commodities.get(id) ?? getCommodity(id);
   if (!c) fail(field, `unknown commodity "${id}"`);
   return c;
 }
@@ -444,7 +449,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   // Product pull-down -------------------------------------------------------------------------
   room.products.forEach((p, j) => {
     const field = `${at}.products.${j}`;
-    const c = commodityOrFail(p.commodityId, `${field}.commodityId`);
+    const c = commodityOrFail(p.commodityId, `${field}.commodityId`, ctx);
     const tFinal = p.finalTempC ?? tRoom;
     if (tFinal < tRoom) fail(`${field}.finalTempC`, `cannot be below the room set point (${tRoom} °C): the room air cannot cool product below itself`);
     const split = productHeatSplit(c, p.enteringTempC, tFinal);
@@ -565,7 +570,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   // Respiration ---------------------------------------------------------------------------------
   room.storedProduce.forEach((s, j) => {
     const field = `${at}.storedProduce.${j}`;
-    const c = commodityOrFail(s.commodityId, `${field}.commodityId`);
+    const c = commodityOrFail(s.commodityId, `${field}.commodityId`, ctx);
     if (c.group !== "fruit" && c.group !== "vegetable") return;
     const massKg = s.massKg ?? (s.palletPositions as number) * (s.kgPerPallet as number);
     const wPerKg = respirationWPerKg(c, tRoom, `${field}.commodityId`);
@@ -604,7 +609,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   if (room.batch) {
     const b = room.batch;
     const field = `${at}.batch`;
-    const c = commodityOrFail(b.commodityId, `${field}.commodityId`);
+    const c = commodityOrFail(b.commodityId, `${field}.commodityId`, ctx);
     const airC = b.airTempC ?? tRoom;
     const tf = c.initialFreezingPointC;
     if (!(airC < b.finalTempC)) fail(`${field}.finalTempC`, `the final temperature must be above the air temperature (${airC} °C)`);

@@ -319,11 +319,45 @@ export const ledgerOptionsSchema = z.object({
   pullDownBasis: z.enum(["rate", "dailyEnergy"]).default("rate"),
 });
 
+/** A user's own commodity; it overrides a built-in one with the same id. */
+export const customCommoditySchema = z
+  .object({
+    id: z.string().min(1, "must not be empty"),
+    name: z.string().min(1, "must not be empty"),
+    group: z.enum(["fruit", "vegetable", "meat", "poultry", "fish", "dairy", "frozen", "prepared"]),
+    waterFraction: range(0.01, 0.99),
+    proteinFraction: range(0, 0.9),
+    initialFreezingPointC: range(-40, -0.05, "°C"),
+    densityKgM3: positive(3000, "kg/m³").optional(),
+    frozenConductivityWmK: positive(5, "W/(m·K)").optional(),
+    /** Becker–Fricke constants, or tabulated [tempC, mW/kg] points in rising temperature. */
+    respiration: z
+      .union([
+        z.object({ f: positive(10), g: range(0, 10) }),
+        z.object({ points: z.array(z.tuple([range(-5, 40, "°C"), positive(5000, "mW/kg")])).min(1, "give at least one point") }),
+      ])
+      .optional(),
+    source: z.string().min(1, "name where the data come from"),
+  })
+  .superRefine((c, ctx) => {
+    if (0.4 * c.proteinFraction >= c.waterFraction) {
+      ctx.addIssue({ code: "custom", path: ["proteinFraction"], message: "bound water 0.4·protein must be below the water fraction" });
+    }
+    if (c.respiration && "points" in c.respiration) {
+      const pts = c.respiration.points;
+      for (let i = 1; i < pts.length; i++) {
+        if (!(pts[i][0] > pts[i - 1][0])) ctx.addIssue({ code: "custom", path: ["respiration", "points", i, 0], message: "temperatures must rise from point to point" });
+      }
+    }
+  });
+
 export const ledgerInputSchema = z
   .object({
     site: siteSchema,
     rooms: z.array(roomSchema),
     doors: z.array(doorSchema).default([]),
+    /** Commodities of the workspace, added to (or overriding) the built-in library. */
+    commodities: z.array(customCommoditySchema).default([]),
     options: ledgerOptionsSchema.default({ colderNeighbour: "ignore", pullDownBasis: "rate" }),
   })
   .superRefine((input, ctx) => {
@@ -374,6 +408,8 @@ export type RoomInput = z.output<typeof roomSchema>;
 export type RoomKind = RoomInput["kind"];
 export type DoorInput = z.output<typeof doorSchema>;
 export type LedgerOptions = z.output<typeof ledgerOptionsSchema>;
+/** A room as a caller writes it (defaulted fields optional). */
+export type RoomInputRaw = z.input<typeof roomSchema>;
 /** A parsed facility model (defaults filled in). */
 export type LedgerInput = z.output<typeof ledgerInputSchema>;
 /** What a caller writes: the same model with defaulted fields optional. */
