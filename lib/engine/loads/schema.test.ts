@@ -6,7 +6,7 @@ import { computeLedger, ledgerInputSchema } from "./index";
 
 describe("input schema", () => {
   it("converts to JSON Schema for the OpenAPI document, bounds included", () => {
-    const json = z.toJSONSchema(ledgerInputSchema, { io: "input" }) as {
+    const json = z.toJSONSchema(ledgerInputSchema, { io: "input" }) as unknown as {
       properties: { rooms: { items: { properties: Record<string, { exclusiveMinimum?: number; maximum?: number; minimum?: number }> } } };
     };
     const lengthM = json.properties.rooms.items.properties.lengthM;
