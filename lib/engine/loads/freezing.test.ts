@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { airSurfaceCoefficientWm2K, phamFreezingTimeS, plankFreezingTimeS } from "./freezing";
+import { airSurfaceCoefficientWm2K, effectiveSurfaceCoefficientWm2K, phamFreezingTimeS, plankFreezingTimeS } from "./freezing";
 
 describe("freezing time", () => {
   // A stated slab: lean beef 120 mm thick, ρ = 1050 kg/m³, L = 333.6·(0.73 − 0.088) = 214.17
@@ -56,5 +56,10 @@ describe("freezing time", () => {
     // Jürges / McAdams (from memory): 5.6 + 4·4 = 21.6 W/(m²·K) at 4 m/s; 7.2·8^0.78 = 36.45 at 8 m/s.
     expect(airSurfaceCoefficientWm2K(4)).toBeCloseTo(21.6, 6);
     expect(airSurfaceCoefficientWm2K(8)).toBeCloseTo(36.45, 2);
+  });
+
+  it("packaging resistance in series with the air film", () => {
+    // Series resistances: 1/(1/21.6 + 0.01) = 17.763 W/(m²·K).
+    expect(effectiveSurfaceCoefficientWm2K(21.6, 0.01)).toBeCloseTo(17.763, 3);
   });
 });

@@ -16,6 +16,11 @@ export function airSurfaceCoefficientWm2K(velocityMS: number): number {
   return velocityMS <= 5 ? 5.6 + 4.0 * velocityMS : 7.2 * Math.pow(velocityMS, 0.78);
 }
 
+/** Effective surface coefficient through packaging, `h_eff = 1 / (1/h + R_pack)` (series resistances). */
+export function effectiveSurfaceCoefficientWm2K(hWm2K: number, packagingResistanceM2KW: number): number {
+  return 1 / (1 / hWm2K + packagingResistanceM2KW);
+}
+
 /**
  * Plank's freezing time, `t = (ρ·L/ΔT)·(P·a/h + R·a²/k)` s, ΔT = t_f − t_air, a the slab
  * thickness or the cylinder / sphere diameter (Plank 1913, as given in the ASHRAE Handbook—
@@ -39,7 +44,8 @@ export function plankFreezingTimeS(p: {
 
 /**
  * Pham's (1986) simplified freezing time including pre-cooling and sub-cooling, as presented
- * by Singh & Heldman, *Introduction to Food Engineering* (from memory):
+ * in the ASHRAE Handbook—Refrigeration (cooling and freezing times of foods) and by Singh &
+ * Heldman, *Introduction to Food Engineering*:
  * `T_fm = 1.8 + 0.263·T_c + 0.105·T_a`, `ΔH1 = ρ·c_u·(T_i − T_fm)`, `ΔH2 = ρ·[L + c_f·(T_fm − T_c)]`,
  * `ΔT1 = (T_i + T_fm)/2 − T_a`, `ΔT2 = T_fm − T_a`,
  * `t = (d/(E·h))·(ΔH1/ΔT1 + ΔH2/ΔT2)·(1 + Bi/2)`, Bi = h·d/k_f, d the half-thickness or radius.

@@ -1,6 +1,6 @@
 import { buildCustomCommodity, getCommodity, type Commodity } from "./commodities";
 import { LoadInputError, fail, pathToField } from "./errors";
-import { airSurfaceCoefficientWm2K, phamFreezingTimeS, plankFreezingTimeS } from "./freezing";
+import { airSurfaceCoefficientWm2K, effectiveSurfaceCoefficientWm2K, phamFreezingTimeS, plankFreezingTimeS } from "./freezing";
 import {
   DOCK_SEAL_EFFECTIVENESS,
   PROTECTION_EFFECTIVENESS,
@@ -618,7 +618,8 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     const k = b.frozenConductivityWmK ?? c.frozenConductivityWmK;
     if (rho === undefined) fail(`${field}.densityKgM3`, `no density for "${c.id}" in the library: give densityKgM3`);
     if (k === undefined) fail(`${field}.frozenConductivityWmK`, `no frozen conductivity for "${c.id}" in the library: give frozenConductivityWmK`);
-    const hWm2K = b.surfaceHeatTransferWm2K ?? airSurfaceCoefficientWm2K(b.airVelocityMS);
+    const hAirWm2K = b.surfaceHeatTransferWm2K ?? airSurfaceCoefficientWm2K(b.airVelocityMS);
+    const hWm2K = effectiveSurfaceCoefficientWm2K(hAirWm2K, b.packagingResistanceM2KW);
     let freezeS: number;
     let methodName: string;
     if (b.freezingTimeMethod === "plank") {
@@ -675,7 +676,9 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
       finalTempC: b.finalTempC,
       airTempC: airC,
       airVelocityMS: b.airVelocityMS,
-      hWm2K: round(hWm2K),
+      hAirWm2K: round(hAirWm2K),
+      packagingResistanceM2KW: b.packagingResistanceM2KW,
+      hEffectiveWm2K: round(hWm2K),
       thicknessM: b.thicknessM,
       shape: b.shape,
       densityKgM3: rho,

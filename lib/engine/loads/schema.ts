@@ -179,6 +179,8 @@ export const batchSchema = z.object({
   airVelocityMS: range(0, 30, "m/s").default(3),
   /** Overrides the surface coefficient found from the air velocity, W/(m²·K). */
   surfaceHeatTransferWm2K: positive(500, "W/(m²·K)").optional(),
+  /** Thermal resistance of cartons / wrapping in the heat path, m²·K/W: h_eff = 1/(1/h + R). */
+  packagingResistanceM2KW: range(0, 5, "m²·K/W").default(0),
   densityKgM3: positive(3000, "kg/m³").optional(),
   frozenConductivityWmK: positive(5, "W/(m·K)").optional(),
   freezingTimeMethod: z.enum(["pham", "plank"]).default("pham"),
