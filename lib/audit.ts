@@ -17,6 +17,7 @@ export type AuditAction =
   | "facility.archived"
   | "facility.restored"
   | "model.edited"
+  | "revision.issued"
   | "scenario.applied"
   | "export.created";
 

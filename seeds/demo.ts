@@ -8,7 +8,7 @@ import bcrypt from "bcryptjs";
 import { readFileSync, existsSync } from "node:fs";
 import path from "node:path";
 import { openDb } from "./db";
-import { facilities, memberships, users, workspaces } from "../db/schema";
+import { facilities, facilityRevisions, memberships, users, workspaces } from "../db/schema";
 
 export const DEMO_PASSWORD = "harrowfield-demo";
 export const DEMO_WORKSPACE = { slug: "harrowfield", name: "Harrowfield Cold Store (demo)" };
@@ -44,19 +44,25 @@ export async function seedDemo(url?: string) {
       .where(and(eq(facilities.workspaceId, ws.id), eq(facilities.name, DEMO_FACILITY_NAME)));
     const model = demoModel();
     if (existing.length === 0) {
-      // Site conditions of the invented site: temperate inland, 32 °C dry bulb / 23 °C wet bulb, 150 m.
-      await db.insert(facilities).values({
+      // Site conditions of the invented site: temperate inland, 32 °C dry bulb / 23 °C wet bulb, 150 m, ground 12 °C.
+      const [f] = await db.insert(facilities).values({
         workspaceId: ws.id,
         name: DEMO_FACILITY_NAME,
         designDryBulbC: 32,
         coincidentWetBulbC: 23,
-        groundTempC: 10,
+        groundTempC: 12,
         elevationM: 150,
         model,
         createdBy: owner.id,
+      }).returning();
+      await db.insert(facilityRevisions).values({
+        facilityId: f.id,
+        number: 1,
+        model: model ?? { schemaVersion: 1, rooms: [], doors: [], plant: {} },
+        site: { designDryBulbC: 32, coincidentWetBulbC: 23, designRhPct: null, groundTempC: 12, elevationM: 150 },
+        summary: "Demo model (invented)",
+        createdBy: owner.id,
       });
-    } else if (existing[0].model === null && model) {
-      await db.update(facilities).set({ model }).where(eq(facilities.id, existing[0].id));
     }
     return { workspace: ws };
   } finally {

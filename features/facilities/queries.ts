@@ -1,11 +1,28 @@
 import "server-only";
 import { and, desc, eq, isNotNull, isNull, sql } from "drizzle-orm";
 import { db } from "@/db/client";
-import { facilities } from "@/db/schema";
+import { facilities, facilityRevisions } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import type { FacilityDto, SiteConditions } from "./schema";
+import { EMPTY_MODEL_DOC } from "./engine-model";
 
 type Row = typeof facilities.$inferSelect;
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+/**
+ * Every version of a facility has its revision snapshot (model and site), so a save based on
+ * any version can be merged against what it started from.
+ */
+async function snapshot(tx: Tx | typeof db, row: Row, userId: string | null, summary: string) {
+  await tx.insert(facilityRevisions).values({
+    facilityId: row.id,
+    number: row.version,
+    model: (row.model ?? EMPTY_MODEL_DOC) as Record<string, unknown>,
+    site: toDto(row).site as Record<string, unknown>,
+    summary,
+    createdBy: userId,
+  });
+}
 
 export function toDto(r: Row): FacilityDto {
   return {
@@ -60,11 +77,14 @@ export async function createFacility(
   userId: string,
   input: { name: string; site: SiteConditions; model?: Record<string, unknown> | null },
 ): Promise<FacilityDto> {
-  const [row] = await db
-    .insert(facilities)
-    .values({ workspaceId, name: input.name, createdBy: userId, model: input.model ?? null, ...siteColumns(input.site) })
-    .returning();
-  return toDto(row);
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .insert(facilities)
+      .values({ workspaceId, name: input.name, createdBy: userId, model: input.model ?? null, ...siteColumns(input.site) })
+      .returning();
+    await snapshot(tx, row, userId, "Created");
+    return toDto(row);
+  });
 }
 
 /** Updates name and/or site; with baseVersion, a stale edit is refused (409) and changes nothing. */
@@ -72,28 +92,33 @@ export async function updateFacility(
   workspaceId: string,
   id: string,
   patch: { name?: string; site?: SiteConditions; baseVersion?: number },
+  userId: string | null = null,
 ): Promise<FacilityDto> {
   const current = await getFacilityRow(workspaceId, id);
   if (patch.baseVersion !== undefined && patch.baseVersion !== current.version) {
     throw new AppError("conflict", `The facility changed since you opened it (version ${current.version}, yours ${patch.baseVersion}). Reload and apply your change again.`, undefined, undefined, { current: toDto(current) });
   }
-  const [row] = await db
-    .update(facilities)
-    .set({
-      ...(patch.name !== undefined ? { name: patch.name } : {}),
-      ...(patch.site ? siteColumns(patch.site) : {}),
-      version: sql`${facilities.version} + 1`,
-      updatedAt: new Date(),
-    })
-    .where(and(eq(facilities.workspaceId, workspaceId), eq(facilities.id, id), eq(facilities.version, current.version)))
-    .returning();
-  if (!row) throw new AppError("conflict", "The facility changed while saving. Reload and apply your change again.");
-  return toDto(row);
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .update(facilities)
+      .set({
+        ...(patch.name !== undefined ? { name: patch.name } : {}),
+        ...(patch.site ? siteColumns(patch.site) : {}),
+        version: sql`${facilities.version} + 1`,
+        updatedAt: new Date(),
+      })
+      .where(and(eq(facilities.workspaceId, workspaceId), eq(facilities.id, id), eq(facilities.version, current.version)))
+      .returning();
+    if (!row) throw new AppError("conflict", "The facility changed while saving. Reload and apply your change again.");
+    await snapshot(tx, row, userId, patch.site ? "Site conditions changed" : "Renamed");
+    return toDto(row);
+  });
 }
 
 export async function duplicateFacility(workspaceId: string, userId: string, id: string, name?: string): Promise<FacilityDto> {
   const src = await getFacilityRow(workspaceId, id);
-  const [row] = await db
+  return db.transaction(async (tx) => {
+  const [row] = await tx
     .insert(facilities)
     .values({
       workspaceId,
@@ -107,14 +132,17 @@ export async function duplicateFacility(workspaceId: string, userId: string, id:
       createdBy: userId,
     })
     .returning();
+  await snapshot(tx, row, userId, `Duplicated from ${src.name}`);
   return toDto(row);
+  });
 }
 
 export async function setArchived(workspaceId: string, id: string, archived: boolean): Promise<FacilityDto> {
   await getFacilityRow(workspaceId, id);
   const [row] = await db
     .update(facilities)
-    .set({ archivedAt: archived ? new Date() : null, updatedAt: new Date(), version: sql`${facilities.version} + 1` })
+    // Archiving is not an engineering change: the version (and revision history) stays.
+    .set({ archivedAt: archived ? new Date() : null, updatedAt: new Date() })
     .where(and(eq(facilities.workspaceId, workspaceId), eq(facilities.id, id)))
     .returning();
   return toDto(row);

@@ -14,7 +14,7 @@ export const PATCH = route({
   body: updateFacilitySchema,
   action: "facility.update",
   handler: async ({ access, user, params, body }) => {
-    const f = await updateFacility(access!.workspace.id, params.id, body);
+    const f = await updateFacility(access!.workspace.id, params.id, body, user.id);
     await audit({ workspaceId: access!.workspace.id, actorId: user.id, actorEmail: user.email, action: "facility.updated", targetType: "facility", targetId: f.id, detail: { fields: Object.keys(body).filter((k) => k !== "baseVersion"), version: f.version } });
     return { facility: f };
   },
