@@ -185,6 +185,21 @@ describe("batch, respiration and ventilation in the ledger", () => {
     expect(r.components.find((c) => c.kind === "batch")!.powerW).toBeCloseTo(6905, 0);
   });
 
+  it("a batch longer than a day, every other day", () => {
+    // 1000 kg lean beef, 248 580 kJ per batch (product.test.ts) over a stated 30 h, one batch
+    // every two days (0.5/day): daily energy 0.5·248 580/3.6 = 34 525 Wh → hourly mean 1438.5 W
+    // on the physical profile; the rate basis carries 248 580e3/(30·3600) = 2301.7 W.
+    const r = ledger([
+      room({
+        kind: "blast",
+        setPointC: -35,
+        batch: { commodityId: "beef-lean", massKg: 1000, thicknessM: 0.3, enteringTempC: 5, finalTempC: -18, batchHours: 30, batchesPerDay: 0.5 },
+      }),
+    ]).rooms[0];
+    expect(r.hourly.reduce((a, b) => a + b, 0) / 24).toBeCloseTo(1438.5, 0);
+    expect(r.components.find((c) => c.kind === "batch")!.powerW).toBeCloseTo(2301.7, 0);
+  });
+
   it("respiration from pallet positions, and the ripening multiplier", () => {
     // 25 pallets × 400 kg = 10 t apples at 0 °C × 0.013737 W/kg (respiration.test.ts) = 137.4 W.
     const stored = [{ commodityId: "apples", palletPositions: 25, kgPerPallet: 400 }];

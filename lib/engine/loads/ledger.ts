@@ -658,7 +658,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     }
     const batchHours = b.batchHours ?? freezeS / 3600;
     if (b.batchesPerDay * batchHours > 24 + 1e-9) {
-      fail(`${field}.batchesPerDay`, `${b.batchesPerDay} batches of ${batchHours.toFixed(1)} h do not fit in 24 h`);
+      fail(`${field}.batchesPerDay`, `${b.batchesPerDay} batches of ${batchHours.toFixed(1)} h do not fit in 24 h (use a fraction, e.g. 0.5 for a batch every two days)`);
     }
     const split = productHeatSplit(c, b.enteringTempC, b.finalTempC);
     const batchKJ = b.massKg * split.totalKJkg;
@@ -738,9 +738,13 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
         ),
       );
     }
-    for (let n = 0; n < b.batchesPerDay; n++) {
-      spreadPeriodic(hourly, (batchKJ + packKJ) / 3.6 + b.fanPowerW * batchHours, b.startHour + n * batchHours, batchHours);
-    }
+    // Whole batches back to back from startHour; a fractional batchesPerDay (a batch every
+    // few days) puts its share of one batch on the day.
+    const batchWh = (batchKJ + packKJ) / 3.6 + b.fanPowerW * batchHours;
+    const whole = Math.floor(b.batchesPerDay);
+    for (let n = 0; n < whole; n++) spreadPeriodic(hourly, batchWh, b.startHour + n * batchHours, batchHours);
+    const part = b.batchesPerDay - whole;
+    if (part > 0) spreadPeriodic(hourly, part * batchWh, b.startHour + whole * batchHours, batchHours);
   }
 
   // Internal loads --------------------------------------------------------------------------------
