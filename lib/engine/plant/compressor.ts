@@ -7,10 +7,10 @@
 import type { CompressorInput, CompressorType, IsentropicCurve, VolumetricCurve } from "./schema";
 
 export const DEFAULT_ISENTROPIC: Record<CompressorType, IsentropicCurve> = {
-  reciprocating: { peak: 0.75, designRatio: 3, curvature: 0.1 },
+  reciprocating: { peak: 0.75, designRatio: 3, curvature: 0.06 },
   // Screws peak near their built-in volume ratio (Vi ≈ 3.6 → PR ≈ 4.5 for ammonia).
   screw: { peak: 0.78, designRatio: 4.5, curvature: 0.12 },
-  scroll: { peak: 0.7, designRatio: 3, curvature: 0.12 },
+  scroll: { peak: 0.7, designRatio: 3, curvature: 0.08 },
 };
 
 export const DEFAULT_VOLUMETRIC: Record<CompressorType, VolumetricCurve> = {
