@@ -126,6 +126,14 @@ describe("product pull-down on the 24-hour basis", () => {
     expect(r.peakHourW).toBeGreaterThan(r.averageLoadW);
   });
 
+  it("produce frozen in a freezer carries no pull-down respiration", () => {
+    // Strawberries 10 → −18 °C in a −25 °C room: respiration stops as the fruit freezes, so the
+    // stream is heat of cooling and freezing only.
+    const r = ledger([room({ setPointC: -25, products: [{ commodityId: "strawberries", massKgPerDay: 500, enteringTempC: 10, finalTempC: -18, pullDownHours: 6 }] })]).rooms[0];
+    expect(r.components.some((c) => c.kind === "respiration")).toBe(false);
+    expect(r.components.filter((c) => c.kind === "product").length).toBe(3);
+  });
+
   it("product cannot end colder than the room air", () => {
     const bad = room({ setPointC: 2, products: [{ commodityId: "apples", massKgPerDay: 1, enteringTempC: 20, finalTempC: 0, pullDownHours: 12 }] });
     expect(fieldOf(() => ledger([bad]))).toBe("rooms.0.products.0.finalTempC");

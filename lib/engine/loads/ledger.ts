@@ -523,8 +523,10 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     }
     // Fresh produce respires faster while it is still warm: the day's intake spends the
     // pull-down at about its mean temperature; only the excess over the room temperature is
-    // added, as the stored mass already carries respiration at the set point.
-    if ((c.group === "fruit" || c.group === "vegetable") && c.respiration && p.massKgPerDay > 0) {
+    // added, as the stored mass already carries respiration at the set point. Produce being
+    // frozen stops respiring as it freezes, so a freezing stream carries none.
+    const chilled = tFinal >= c.initialFreezingPointC;
+    if ((c.group === "fruit" || c.group === "vegetable") && c.respiration && chilled && p.massKgPerDay > 0) {
       const meanC = (p.enteringTempC + tFinal) / 2;
       const excessWPerKg = respirationWPerKg(c, meanC, `${field}.enteringTempC`) - respirationWPerKg(c, tRoom, `${field}.commodityId`);
       const hoursWarm = Math.min(p.pullDownHours, 24);
