@@ -132,6 +132,8 @@ describe("product pull-down on the 24-hour basis", () => {
     const r = ledger([room({ setPointC: -25, products: [{ commodityId: "strawberries", massKgPerDay: 500, enteringTempC: 10, finalTempC: -18, pullDownHours: 6 }] })]).rooms[0];
     expect(r.components.some((c) => c.kind === "respiration")).toBe(false);
     expect(r.components.filter((c) => c.kind === "product").length).toBe(3);
+    const stored = ledger([room({ setPointC: -25, storedProduce: [{ commodityId: "strawberries", massKg: 10000 }] })]).rooms[0];
+    expect(stored.components.length).toBe(0);
   });
 
   it("product cannot end colder than the room air", () => {

@@ -573,7 +573,8 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   room.storedProduce.forEach((s, j) => {
     const field = `${at}.storedProduce.${j}`;
     const c = commodityOrFail(s.commodityId, `${field}.commodityId`, ctx);
-    if (c.group !== "fruit" && c.group !== "vegetable") return;
+    // Meat, fish, dairy and frozen produce do not respire.
+    if ((c.group !== "fruit" && c.group !== "vegetable") || tRoom < c.initialFreezingPointC) return;
     const massKg = s.massKg ?? (s.palletPositions as number) * (s.kgPerPallet as number);
     const wPerKg = respirationWPerKg(c, tRoom, `${field}.commodityId`);
     const powerW = massKg * wPerKg * multiplier;
