@@ -1,18 +1,19 @@
 /**
- * `npx tsx scripts/calc.ts path/to/facility.json [--compact]`: computes the heat ledger of a
- * facility model (lib/engine/loads input format, see lib/engine/loads/README.md) and prints
- * the result as JSON on stdout. Invalid input prints the field-named issues as JSON on stderr
- * and exits with status 1; an unreadable file exits with status 2.
+ * `npm run calc -- path/to/facility.json [--compact]`: computes a facility model (ledger and
+ * plant; a document with schemaVersion) or a heat-ledger input (ledger only) and prints the
+ * result as JSON — the same function POST /api/v1/calculate runs, so both give the same
+ * numbers. Invalid input prints the field-named issues as JSON on stderr and exits 1; an
+ * unreadable file exits 2.
  */
 import { readFileSync } from "node:fs";
-import { LoadInputError, computeLedger } from "../lib/engine/loads";
+import { calculate, CalcError } from "../features/calculate/run";
 
 const args = process.argv.slice(2).filter((a) => a !== "--");
 const compact = args.includes("--compact");
 const file = args.find((a) => !a.startsWith("--"));
 
 if (!file) {
-  process.stderr.write("usage: npx tsx scripts/calc.ts path/to/facility.json [--compact]\n");
+  process.stderr.write("usage: npm run calc -- path/to/facility.json [--compact]\n");
   process.exit(2);
 }
 
@@ -25,11 +26,11 @@ try {
 }
 
 try {
-  const result = computeLedger(raw as Parameters<typeof computeLedger>[0]);
-  process.stdout.write(JSON.stringify(result, null, compact ? 0 : 2) + "\n");
+  const out = await calculate(raw);
+  process.stdout.write(JSON.stringify(out, null, compact ? 0 : 2) + "\n");
 } catch (e) {
-  if (e instanceof LoadInputError) {
-    process.stderr.write(JSON.stringify({ error: e.code, message: e.message, issues: e.issues }, null, 2) + "\n");
+  if (e instanceof CalcError) {
+    process.stderr.write(JSON.stringify({ error: e.kind, message: e.message, issues: e.issues }, null, 2) + "\n");
     process.exit(1);
   }
   throw e;

@@ -96,7 +96,7 @@ describe("computeFacility: ledger and plant together", () => {
     p.evaporators[0].defrost = { type: "electric", heaterWPerWDuty: 3, minutesPerDefrost: 60, defrostsPerDay: 12, fractionToRoom: 1 };
     const e = thrown(() => computeFacility(model(p)));
     expect(e.code).toBe("NO_CONVERGENCE");
-    expect(e.field).toBe("rooms[0]");
+    expect(e.field).toBe("rooms.0");
   });
 
   it("rejects a condensing temperature below the ambient sink as a second-law violation naming it", () => {
@@ -105,7 +105,7 @@ describe("computeFacility: ledger and plant together", () => {
     // 20 °C condensing with a 32 °C dry-bulb sink: heat would flow from cold to hot.
     const e = thrown(() => computeFacility(model(p)));
     expect(e.code).toBe("SECOND_LAW_VIOLATION");
-    expect(e.field).toBe("plant.condensers[0].condensingC");
+    expect(e.field).toBe("plant.condensers.0.condensingC");
   });
 
   it("refuses a suction temperature below the fluid's range, naming the evaporator", () => {
@@ -119,7 +119,7 @@ describe("computeFacility: ledger and plant together", () => {
     // point −56.56 °C (Span & Wagner 1996).
     const e = thrown(() => computeFacility(model(p)));
     expect(e.code).toBe("INPUT_OUT_OF_RANGE");
-    expect(e.field).toBe("plant.evaporators[1].tdK");
+    expect(e.field).toBe("plant.evaporators.1.tdK");
   });
 });
 
@@ -268,7 +268,7 @@ describe("installed plant re-rating", () => {
     };
     const e = thrown(() => rerateInstalled(model(p)));
     expect(e.code).toBe("SECOND_LAW_VIOLATION");
-    expect(e.field).toBe("plant.installed.compressors[0].rating.shaftPowerWPerUnit");
+    expect(e.field).toBe("plant.installed.compressors.0.rating.shaftPowerWPerUnit");
   });
 
   it("reproduces a rated compressor at its own rating point and scales condensers with approach", () => {

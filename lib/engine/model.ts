@@ -129,7 +129,7 @@ function solveRoom(room: RoomInput, index: number, evs: EvaporatorInput[], lctx:
   const fp = solveDutyFixedPoint(f, {
     tolerance: plant.options.fixedPointTolerance,
     maxIterations: plant.options.fixedPointMaxIterations,
-    field: `rooms[${index}]`,
+    field: `rooms.${index}`,
     // The ledger turns daily energy into capacity by (1 + SF)/run hours, or — when the peak
     // hour governs — spreads fans and defrost evenly, (1 + SF)/24 per hour. The prediction
     // only saves calls: convergence is still checked against the ledger itself.

@@ -160,7 +160,7 @@ export function defaultApproachK(type: CondenserInput["type"], transcritical: bo
  * The sink the approach is measured from is the reservoir for the Carnot and Clausius terms.
  */
 export function condenserSink(cd: CondenserInput, index: number, ambient: Ambient, transcritical: boolean, highSideDesignC?: number): Sink {
-  const base = `plant.condensers[${index}]`;
+  const base = `plant.condensers.${index}`;
   const approach = cd.approachK ?? defaultApproachK(cd.type, transcritical);
   const hsd = (t: number) => highSideDesignC ?? t;
   switch (cd.type) {
@@ -301,7 +301,7 @@ function computeOneCircuit(
   cascades: CircuitInput[],
   warnings: PlantWarning[],
 ): CircuitResult | undefined {
-  const path = `plant.circuits[${index}]`;
+  const path = `plant.circuits.${index}`;
   const ref = { kind: "circuit" as const, id: c.id, tag: c.tag };
   const fluid = ctx.getFluid(c.refrigerant);
   const evaps = sized.filter((s) => s.dutyW > 0);
@@ -315,7 +315,7 @@ function computeOneCircuit(
     reservoirs.push({ heatW: e.dutyW, tK: room.setPointC + K0 });
     evaporatorRoomDutyW += e.dutyW;
     roomEntropyW_K += e.dutyW / (room.setPointC + K0);
-    evapTemps.push({ tC: e.evaporatingC, field: `plant.evaporators[${evapIndex.get(e.id)}].tdK` });
+    evapTemps.push({ tC: e.evaporatingC, field: `plant.evaporators.${evapIndex.get(e.id)}.tdK` });
   }
   for (const lo of cascades) {
     const hr = lo.heatRejection;
@@ -323,7 +323,7 @@ function computeOneCircuit(
     if (!low || hr.to !== "circuit") continue;
     const tC = hr.condensingC - hr.approachK;
     reservoirs.push({ heatW: low.heatRejectedW, tK: tC + K0 });
-    evapTemps.push({ tC, field: `plant.circuits[${ctx.plant.circuits.indexOf(lo)}].heatRejection.approachK` });
+    evapTemps.push({ tC, field: `plant.circuits.${ctx.plant.circuits.indexOf(lo)}.heatRejection.approachK` });
   }
   const refrigerationW = reservoirs.reduce((a, r) => a + r.heatW, 0);
   if (refrigerationW <= 0) {

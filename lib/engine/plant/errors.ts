@@ -1,6 +1,6 @@
 /**
  * Typed errors of the plant engine. Each names the input that caused it (a dotted path into
- * the facility model, e.g. "plant.circuits[2].heatRejection.condensingC") so the UI can link
+ * the facility model, e.g. "plant.circuits.2.heatRejection.condensingC") so the UI can link
  * the message to the field; numbers that would be physically impossible are never returned.
  */
 
@@ -20,7 +20,7 @@ export class PlantError extends Error {
   constructor(
     public readonly code: PlantErrorCode,
     message: string,
-    /** Dotted path of the input that caused it. */
+    /** Dotted path of the input that caused it, in the ledger's style (e.g. "plant.circuits.2.subcoolingK"). */
     public readonly field: string,
     /** Allowed range where one applies. */
     public readonly allowed?: { min?: number; max?: number; unit: string },

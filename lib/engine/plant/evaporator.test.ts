@@ -63,7 +63,7 @@ describe("evaporator sizing", () => {
 });
 
 describe("fan/defrost fixed point", () => {
-  const opts = { tolerance: 1e-9, maxIterations: 30, field: "rooms[0]" };
+  const opts = { tolerance: 1e-9, maxIterations: 30, field: "rooms.0" };
 
   it("solves an affine feedback exactly", () => {
     // x = 1000 + 0.2·x → x = 1000/0.8 = 1250 (algebra).
@@ -93,7 +93,7 @@ describe("fan/defrost fixed point", () => {
       }
       expect(err).toBeInstanceOf(PlantError);
       expect((err as PlantError).code).toBe("NO_CONVERGENCE");
-      expect((err as PlantError).field).toBe("rooms[0]");
+      expect((err as PlantError).field).toBe("rooms.0");
     }
   });
 });

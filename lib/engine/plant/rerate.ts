@@ -148,7 +148,7 @@ export function rerateInstalled(model: FacilityModel, conditions: RerateConditio
           throw new PlantError(
             "SECOND_LAW_VIOLATION",
             `${x.tag}: rated COP ${(r.capacityWPerUnit / r.shaftPowerWPerUnit).toFixed(2)} exceeds the Carnot COP ${carnot.toFixed(2)} of its rating temperatures`,
-            `plant.installed.compressors[${i}].rating.shaftPowerWPerUnit`,
+            `plant.installed.compressors.${i}.rating.shaftPowerWPerUnit`,
           );
         const atRating = perWatt(fluid, c, x.type, r.evaporatingC, r.condensingC, r.superheatK, r.subcoolingK);
         sweptPerUnit = r.capacityWPerUnit * atRating.sweptM3sPerW;
