@@ -1,0 +1,131 @@
+/**
+ * The OpenAPI 3.1 document of the versioned JSON API, with request bodies generated from the
+ * same zod schemas the routes validate with (zod's JSON Schema output), so it cannot drift
+ * from what the server accepts.
+ */
+import { z } from "zod";
+import { facilityModelSchema } from "@/lib/engine/model";
+import { ledgerInputSchema } from "@/lib/engine/loads";
+import { stateQuerySchema } from "@/lib/engine/thermo";
+import { createFacilitySchema, updateFacilitySchema, archiveFacilitySchema, duplicateFacilitySchema } from "@/features/facilities/schema";
+import { saveModelSchema, issueSchema } from "@/features/facilities/model-schema";
+import { inviteSchema, changeRoleSchema, acceptInviteSchema } from "@/features/team/schema";
+import { emailOnlySchema, resetSchema } from "@/features/auth/schema";
+
+const js = (s: z.ZodType) => z.toJSONSchema(s, { io: "input", unrepresentable: "any", target: "draft-2020-12" });
+
+const errorSchema = {
+  type: "object",
+  required: ["error"],
+  properties: {
+    error: {
+      type: "object",
+      required: ["code", "message"],
+      properties: {
+        code: { type: "string", enum: ["unauthenticated", "forbidden", "not_found", "validation", "conflict", "rate_limited", "invalid_token", "last_owner", "calculation", "internal"] },
+        message: { type: "string" },
+        field: { type: "string", description: "Dotted path of the offending input, e.g. site.designDryBulbC or model.rooms.0.setPointC" },
+        fields: { type: "array", items: { type: "object", properties: { field: { type: "string" }, message: { type: "string" } } } },
+      },
+    },
+  },
+};
+
+function body(ref: string) {
+  return { required: true, content: { "application/json": { schema: { $ref: `#/components/schemas/${ref}` } } } };
+}
+const ok = (description: string) => ({ description, content: { "application/json": { schema: { type: "object" } } } });
+const errors = {
+  "400": { description: "Invalid input; the error names the field and the allowed range", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
+  "401": { description: "Not signed in", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
+  "403": { description: "Your role may not do this", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
+  "404": { description: "Not found, or not a member of the workspace", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
+};
+const ws = { name: "ws", in: "path", required: true, schema: { type: "string" }, description: "Workspace slug" };
+const id = { name: "id", in: "path", required: true, schema: { type: "string", format: "uuid" }, description: "Facility id" };
+
+export function openApiDocument(serverUrl: string) {
+  return {
+    openapi: "3.1.0",
+    info: {
+      title: "Rimeplan API",
+      version: "1",
+      description:
+        "Refrigeration planning for cold-chain warehouses. SI units throughout (°C in names ending C, K for differences, W, Pa absolute). " +
+        "Results are planning calculations: designs must follow local codes and be checked by licensed practice.",
+    },
+    servers: [{ url: serverUrl }],
+    components: {
+      securitySchemes: { session: { type: "apiKey", in: "cookie", name: "authjs.session-token" } },
+      schemas: {
+        Error: errorSchema,
+        FacilityModel: js(facilityModelSchema),
+        LedgerInput: js(ledgerInputSchema),
+        CreateFacility: js(createFacilitySchema),
+        UpdateFacility: js(updateFacilitySchema),
+        DuplicateFacility: js(duplicateFacilitySchema),
+        ArchiveFacility: js(archiveFacilitySchema),
+        SaveModel: js(saveModelSchema),
+        IssueRevision: js(issueSchema),
+        Invite: js(inviteSchema),
+        ChangeRole: js(changeRoleSchema),
+        AcceptInvite: js(acceptInviteSchema),
+        EmailOnly: js(emailOnlySchema),
+        ResetPassword: js(resetSchema),
+        StateQuery: js(stateQuerySchema),
+      },
+    },
+    security: [{ session: [] }],
+    paths: {
+      "/api/v1/health": { get: { summary: "Liveness and database check", security: [], responses: { "200": ok("Healthy"), "503": ok("Database unreachable") } } },
+      "/api/v1/calculate": {
+        post: {
+          summary: "Compute a facility model (ledger and plant) or a heat-ledger input (ledger only), statelessly",
+          requestBody: { required: true, content: { "application/json": { schema: { oneOf: [{ $ref: "#/components/schemas/FacilityModel" }, { $ref: "#/components/schemas/LedgerInput" }] } } } },
+          responses: { "200": ok("Results with engine version and input hash"), "422": { description: "Physically impossible or non-converging result, naming the input" }, ...errors },
+        },
+      },
+      "/api/v1/fluids": { get: { summary: "Refrigerants with metadata (safety group, GWP with source, critical point)", security: [], responses: { "200": ok("Fluid list") } } },
+      "/api/v1/fluids/{id}/state": {
+        get: {
+          summary: "A state or saturation point (IIR reference state)",
+          security: [],
+          parameters: [{ name: "id", in: "path", required: true, schema: { type: "string" } }, { name: "query", in: "query", style: "form", explode: true, schema: { $ref: "#/components/schemas/StateQuery" } }],
+          responses: { "200": ok("State"), ...errors },
+        },
+      },
+      "/api/v1/fluids/{id}/chart": { get: { summary: "Pressure–enthalpy chart data", security: [], parameters: [{ name: "id", in: "path", required: true, schema: { type: "string" } }], responses: { "200": ok("Chart data") } } },
+      "/api/v1/me": { get: { summary: "The signed-in person and their workspaces", responses: { "200": ok("Me") } }, patch: { summary: "Units (SI/IP) and theme", responses: { "200": ok("Updated") } } },
+      "/api/v1/workspaces": { get: { summary: "My workspaces and roles", responses: { "200": ok("Workspaces") } } },
+      "/api/v1/workspaces/{ws}/facilities": {
+        get: { summary: "Facilities (archived=1 for archived)", parameters: [ws], responses: { "200": ok("Facilities"), ...errors } },
+        post: { summary: "Create a facility (owner, designer)", parameters: [ws], requestBody: body("CreateFacility"), responses: { "201": ok("Created"), ...errors } },
+      },
+      "/api/v1/workspaces/{ws}/facilities/{id}": {
+        get: { summary: "A facility", parameters: [ws, id], responses: { "200": ok("Facility"), ...errors } },
+        patch: { summary: "Rename or change site conditions (owner, designer)", parameters: [ws, id], requestBody: body("UpdateFacility"), responses: { "200": ok("Updated"), "409": ok("Stale baseVersion"), ...errors } },
+      },
+      "/api/v1/workspaces/{ws}/facilities/{id}/duplicate": { post: { summary: "Duplicate (owner, designer)", parameters: [ws, id], requestBody: body("DuplicateFacility"), responses: { "201": ok("Copy"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/archive": { post: { summary: "Archive or restore (owner, designer)", parameters: [ws, id], requestBody: body("ArchiveFacility"), responses: { "200": ok("Facility"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/model": {
+        get: { summary: "The model document and its version", parameters: [ws, id], responses: { "200": ok("Model"), ...errors } },
+        put: { summary: "Save the model (owner, designer); non-overlapping concurrent edits are merged", parameters: [ws, id], requestBody: body("SaveModel"), responses: { "200": ok("Saved"), "409": ok("Overlapping concurrent edit: current document included"), ...errors } },
+      },
+      "/api/v1/workspaces/{ws}/facilities/{id}/results": { get: { summary: "Server results for the current version (engine version, input hash)", parameters: [ws, id], responses: { "200": ok("Results"), "422": ok("Calculation error"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/revisions": { get: { summary: "Revision history", parameters: [ws, id], responses: { "200": ok("Revisions"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/revisions/{n}/restore": { post: { summary: "Restore a revision as a new version (owner, designer)", parameters: [ws, id, { name: "n", in: "path", required: true, schema: { type: "integer" } }], responses: { "200": ok("Saved"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/revisions/{n}/issue": { post: { summary: "Issue (and lock) a revision (owner, designer)", parameters: [ws, id, { name: "n", in: "path", required: true, schema: { type: "integer" } }], requestBody: body("IssueRevision"), responses: { "200": ok("Issued"), ...errors } } },
+      "/api/v1/workspaces/{ws}/members": { get: { summary: "Members (and, for owners, pending invites)", parameters: [ws], responses: { "200": ok("Members"), ...errors } } },
+      "/api/v1/workspaces/{ws}/members/{userId}": {
+        patch: { summary: "Change a role (owner); the last owner cannot be demoted", parameters: [ws, { name: "userId", in: "path", required: true, schema: { type: "string", format: "uuid" } }], requestBody: body("ChangeRole"), responses: { "200": ok("Changed"), "409": ok("Last owner"), ...errors } },
+        delete: { summary: "Remove a member (owner); ends their sessions", parameters: [ws, { name: "userId", in: "path", required: true, schema: { type: "string", format: "uuid" } }], responses: { "200": ok("Removed"), "409": ok("Last owner"), ...errors } },
+      },
+      "/api/v1/workspaces/{ws}/invites": { post: { summary: "Invite by e-mail (owner)", parameters: [ws], requestBody: body("Invite"), responses: { "201": ok("Invited"), ...errors } } },
+      "/api/v1/workspaces/{ws}/audit": { get: { summary: "Audit log (owner)", parameters: [ws], responses: { "200": ok("Entries"), ...errors } } },
+      "/api/v1/invites/accept": { post: { summary: "Accept an invitation", security: [], requestBody: body("AcceptInvite"), responses: { "200": ok("Joined"), ...errors } } },
+      "/api/v1/auth/link": { post: { summary: "E-mail a one-time sign-in link", security: [], requestBody: body("EmailOnly"), responses: { "200": ok("Sent if the account exists") } } },
+      "/api/v1/auth/reset-request": { post: { summary: "E-mail a password-reset link", security: [], requestBody: body("EmailOnly"), responses: { "200": ok("Sent if the account exists") } } },
+      "/api/v1/auth/reset": { post: { summary: "Set a new password with a reset token; ends all sessions", security: [], requestBody: body("ResetPassword"), responses: { "200": ok("Changed"), ...errors } } },
+    },
+  };
+}

@@ -1,0 +1,59 @@
+/**
+ * One entry point for "compute this facility JSON", shared by POST /api/v1/calculate and the
+ * CLI (`npm run calc`), so both return the same numbers for the same model. A document with
+ * `schemaVersion` and `plant` is a full facility model (ledger + plant); one without is a
+ * heat-ledger input (ledger only).
+ */
+import { createHash } from "node:crypto";
+import { z } from "zod";
+import { canonicalJson } from "@/lib/merge";
+import { computeFacility, facilityFluidsNeeded, facilityModelSchema, PLANT_ENGINE_VERSION } from "@/lib/engine/model";
+import { computeLedger, ledgerInputSchema } from "@/lib/engine/loads";
+import { loadFluid } from "@/lib/engine/thermo";
+
+export interface CalcIssue {
+  field: string;
+  message: string;
+}
+
+export class CalcError extends Error {
+  constructor(
+    message: string,
+    public readonly kind: "validation" | "calculation",
+    public readonly issues: CalcIssue[],
+  ) {
+    super(message);
+  }
+}
+
+function issuesOf(e: z.ZodError): CalcIssue[] {
+  return e.issues.map((i) => ({ field: i.path.map(String).join(".") || "(root)", message: i.message }));
+}
+
+export function isFacilityModel(raw: unknown): boolean {
+  return typeof raw === "object" && raw !== null && "schemaVersion" in raw;
+}
+
+export async function calculate(raw: unknown) {
+  const facility = isFacilityModel(raw);
+  const parsed = (facility ? facilityModelSchema : ledgerInputSchema).safeParse(raw);
+  if (!parsed.success) {
+    const issues = issuesOf(parsed.error);
+    throw new CalcError(`${issues[0].field}: ${issues[0].message}`, "validation", issues);
+  }
+  const inputHash = createHash("sha256").update(canonicalJson(parsed.data)).digest("hex").slice(0, 16);
+  try {
+    if (facility) {
+      const model = parsed.data as z.output<typeof facilityModelSchema>;
+      await Promise.all(facilityFluidsNeeded(model).map((id) => loadFluid(id)));
+      const result = computeFacility(model);
+      return { kind: "facility" as const, inputHash, engineVersion: result.engineVersion ?? PLANT_ENGINE_VERSION, result };
+    }
+    const result = computeLedger(parsed.data as z.output<typeof ledgerInputSchema>);
+    return { kind: "ledger" as const, inputHash, engineVersion: result.engineVersion, result };
+  } catch (e) {
+    const err = e as Error & { field?: string; issues?: CalcIssue[] };
+    if (e instanceof CalcError) throw e;
+    throw new CalcError(err.message, "calculation", err.issues ?? [{ field: err.field ?? "(model)", message: err.message }]);
+  }
+}
