@@ -145,7 +145,8 @@ export function contextFromParsed(input: LedgerInput): LedgerContext {
     for (const side of door.sides) doorsByRoom.get(side)?.push({ door, index });
   });
   const commodities = new Map<string, Commodity>();
-  for (const c of input.commodities) commodities.set(c.id, buildCustomCommodity(c));
+  // `commodities` came after the first contract; inputs built by hand may not carry it.
+  for (const c of input.commodities ?? []) commodities.set(c.id, buildCustomCommodity(c));
   return {
     input,
     options: input.options,
