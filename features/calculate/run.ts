@@ -7,7 +7,7 @@
 import { createHash } from "node:crypto";
 import { z } from "zod";
 import { canonicalJson } from "@/lib/merge";
-import { computeFacility, facilityFluidsNeeded, facilityModelSchema, PLANT_ENGINE_VERSION } from "@/lib/engine/model";
+import { buildSchedule, computeFacility, facilityFluidsNeeded, facilityModelSchema, PLANT_ENGINE_VERSION, rerateInstalled } from "@/lib/engine/model";
 import { computeLedger, ledgerInputSchema } from "@/lib/engine/loads";
 import { loadFluid } from "@/lib/engine/thermo";
 
@@ -47,7 +47,17 @@ export async function calculate(raw: unknown) {
       const model = parsed.data as z.output<typeof facilityModelSchema>;
       await Promise.all(facilityFluidsNeeded(model).map((id) => loadFluid(id)));
       const result = computeFacility(model);
-      return { kind: "facility" as const, inputHash, engineVersion: result.engineVersion ?? PLANT_ENGINE_VERSION, result };
+      const installed = model.plant.installed;
+      const hasInstalled = !!installed && installed.evaporators.length + installed.compressors.length + installed.condensers.length > 0;
+      return {
+        kind: "facility" as const,
+        inputHash,
+        engineVersion: result.engineVersion ?? PLANT_ENGINE_VERSION,
+        result,
+        schedule: buildSchedule(result.plant),
+        // The installed plant re-rated at the design conditions, standby units excluded.
+        installed: hasInstalled ? rerateInstalled(model) : null,
+      };
     }
     const result = computeLedger(parsed.data as z.output<typeof ledgerInputSchema>);
     return { kind: "ledger" as const, inputHash, engineVersion: result.engineVersion, result };
