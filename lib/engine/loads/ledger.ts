@@ -81,6 +81,8 @@ export interface RoomLoadResult {
    * what a heat mode must supply; ignored or credited in the ledger per `colderNeighbour`.
    */
   heatOutflowW: number;
+  /** How requiredCapacityW and requiredPeakCapacityW were found. */
+  capacityTrace: LoadTrace;
 }
 
 export interface LedgerTotals {
@@ -871,6 +873,20 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     requiredPeakCapacityW,
     designCapacityW: Math.max(requiredCapacityW, requiredPeakCapacityW),
     heatOutflowW,
+    capacityTrace: {
+      method: "Design capacity from the 24-h energy, safety factor and allowed run time",
+      source: `${HANDBOOK}; safety factor and run time by common practice`,
+      inputs: {
+        totalEnergyKWhPerDay,
+        safetyFactor: sf,
+        runHoursPerDay: room.runHoursPerDay,
+        peakHour,
+        peakHourW: hourly[peakHour],
+        pullDownBasis: opts.pullDownBasis,
+        colderNeighbour: opts.colderNeighbour,
+      },
+      formula: "Q_req = E_24h·(1 + SF)/t_run; Q_peak = max_h q_h·(1 + SF); design = max(Q_req, Q_peak)",
+    },
   };
   for (const key of ["averageLoadW", "requiredCapacityW", "latentW", "peakHourW"] as const) {
     if (!Number.isFinite(result[key])) fail(at, `${key} came out non-finite: check the room's inputs`);
