@@ -1,6 +1,8 @@
 import { beforeAll, describe, expect, it } from "vitest";
+import fc from "fast-check";
 import { getFluid, loadFluid } from "../thermo";
 import { computeCircuits } from "./circuit";
+import { PlantError } from "./errors";
 import { sizeRoomEvaporators } from "./evaporator";
 import { plantInputSchema, type PlantInputRaw } from "./schema";
 
@@ -106,5 +108,57 @@ describe("zeotropic blends", () => {
     expect(satE.glideK).toBeGreaterThan(2);
     expect(c.energyBalance.relativeError).toBeLessThan(1e-3);
     expect(c.cop).toBeLessThan(c.copCarnot!);
+  });
+});
+
+describe("random valid circuits", () => {
+  it("either satisfy both laws or fail with a typed error naming an input — never NaN", () => {
+    const arb = fc.record({
+      refrigerant: fc.constantFrom("R717", "R449A"),
+      arrangement: fc.constantFrom("single-stage", "two-stage"),
+      type: fc.constantFrom("reciprocating", "screw", "scroll"),
+      tdK: fc.double({ min: 3, max: 12, noNaN: true }),
+      roomId: fc.constantFrom("cold", "fresh"),
+      condenser: fc.constantFrom("air-cooled", "evaporative", "water-cooled"),
+      subcoolingK: fc.double({ min: 0, max: 8, noNaN: true }),
+      feed: fc.constantFrom("dx", "pumped"),
+    });
+    let computed = 0;
+    fc.assert(
+      fc.property(arb, (a) => {
+        const raw: PlantInputRaw = {
+          evaporators: [{ id: "e", tag: "EV-1", roomId: a.roomId, circuitId: "c1", tdK: a.tdK, feed: { type: a.feed } }],
+          circuits: [
+            {
+              id: "c1",
+              tag: "C-1",
+              refrigerant: a.refrigerant,
+              arrangement: a.arrangement,
+              compressor: { type: a.type },
+              subcoolingK: a.subcoolingK,
+              heatRejection: { to: "condenser", condenserId: "cd" },
+            },
+          ],
+          condensers: [{ id: "cd", tag: "CD-1", type: a.condenser }],
+        };
+        let out: ReturnType<typeof run> | undefined;
+        try {
+          out = run(raw);
+        } catch (e) {
+          expect(e).toBeInstanceOf(PlantError);
+          expect((e as PlantError).field).toMatch(/^plant\./);
+          return;
+        }
+        const c = out.circuits[0];
+        for (const v of [c.cop, c.shaftPowerW, c.massFlowKgS, c.heatRejectedW, c.dischargeTempC]) expect(Number.isFinite(v)).toBe(true);
+        expect(c.energyBalance.relativeError).toBeLessThan(1e-3);
+        expect(c.cop).toBeLessThan(c.copCarnot!);
+        for (const v of Object.values(c.entropyGeneration.byComponentW_K)) expect(v).toBeGreaterThanOrEqual(0);
+        computed++;
+      }),
+      { seed: 42, numRuns: 40 },
+    );
+    // The generator mostly yields computable circuits; errors are the exception.
+    expect(computed).toBeGreaterThan(30);
   });
 });
