@@ -8,7 +8,7 @@ import { createHash } from "node:crypto";
 import { z } from "zod";
 import { canonicalJson } from "@/lib/merge";
 import { buildSchedule, computeFacility, facilityFluidsNeeded, facilityModelSchema, PLANT_ENGINE_VERSION, rerateInstalled } from "@/lib/engine/model";
-import { computeLedger, ledgerInputSchema } from "@/lib/engine/loads";
+import { contextFromParsed, ledgerFromContext, ledgerInputSchema } from "@/lib/engine/loads";
 import { loadFluid } from "@/lib/engine/thermo";
 
 export interface CalcIssue {
@@ -59,7 +59,8 @@ export async function calculate(raw: unknown) {
         installed: hasInstalled ? rerateInstalled(model) : null,
       };
     }
-    const result = computeLedger(parsed.data as z.output<typeof ledgerInputSchema>);
+    // Already validated above: compute from the parsed input without validating again.
+    const result = ledgerFromContext(contextFromParsed(parsed.data as z.output<typeof ledgerInputSchema>));
     return { kind: "ledger" as const, inputHash, engineVersion: result.engineVersion, result };
   } catch (e) {
     const err = e as Error & { field?: string; issues?: CalcIssue[] };
