@@ -2,7 +2,17 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { loadFluid } from "./thermo";
-import { buildSchedule, computeFacility, createFacilityEngine, facilityModelSchema, rerateInstalled, stullWetBulbC, type FacilityModel } from "./model";
+import { LoadInputError } from "./loads";
+import {
+  buildSchedule,
+  computeFacility,
+  createFacilityEngine,
+  facilityModelSchema,
+  parseFacilityModel,
+  rerateInstalled,
+  stullWetBulbC,
+  type FacilityModel,
+} from "./model";
 import { PlantError } from "./plant/errors";
 
 const root = path.resolve(__dirname, "../..");
@@ -41,6 +51,19 @@ describe("facility model schema", () => {
     expect(issues).toContainEqual(["plant.evaporators.0.tdK", expect.stringContaining("20")]);
     expect(issues).toContainEqual(["plant.evaporators.1.circuitId", 'no circuit "nope"']);
     expect(issues).toContainEqual(["plant.evaporators.2.roomId", 'no room with id "nowhere"']);
+  });
+
+  it("throws the ledger's input error type, field by field, from parseFacilityModel", () => {
+    const bad = structuredClone(plantFixture);
+    bad.circuits[0].subcoolingK = -1;
+    let err: unknown;
+    try {
+      parseFacilityModel({ schemaVersion: 1, ...ledger, plant: bad });
+    } catch (e) {
+      err = e;
+    }
+    expect(err).toBeInstanceOf(LoadInputError);
+    expect((err as LoadInputError).field).toBe("plant.circuits.0.subcoolingK");
   });
 
   it("refuses a cascade loop and a transcritical ammonia circuit", () => {
@@ -193,6 +216,23 @@ describe("incremental engine", () => {
     expect(inc.ledger.totals).toEqual(full.ledger.totals);
     expect(inc.plant.circuits).toEqual(full.plant.circuits);
     expect(inc.plant.totals).toEqual(full.plant.totals);
+  });
+});
+
+describe("incremental engine reach", () => {
+  it("recomputes the rooms facing an edited set point, and matches a full compute", () => {
+    const eng = createFacilityEngine();
+    const m = model();
+    eng.compute(m);
+    const rooms = m.rooms.map((r) => (r.id === "apples" ? { ...r, setPointC: 1 } : r));
+    const edited: FacilityModel = { ...m, rooms };
+    const inc = eng.compute(edited);
+    const facing = m.doors.filter((d) => d.sides.includes("apples")).length + m.rooms.filter((r) => r.surfaces.some((s) => typeof s.otherSide === "object" && s.otherSide.roomId === "apples")).length;
+    expect(eng.lastStats.roomsComputed).toBeGreaterThanOrEqual(1 + Math.min(facing, 1));
+    const full = computeFacility(edited);
+    expect(inc.ledger.rooms).toEqual(full.ledger.rooms);
+    expect(inc.plant.circuits).toEqual(full.plant.circuits);
+    expect(inc.plant.warnings).toEqual(full.plant.warnings);
   });
 });
 

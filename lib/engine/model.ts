@@ -7,6 +7,7 @@
  */
 import { z } from "zod";
 import {
+  LoadInputError,
   computeRoomLoad,
   contextFromParsed,
   ledgerFromContext,
@@ -73,6 +74,18 @@ export const facilityModelSchema = z.intersection(ledgerInputSchema, plantPart).
 
 export type FacilityModel = z.output<typeof facilityModelSchema>;
 export type FacilityModelRaw = z.input<typeof facilityModelSchema>;
+
+/**
+ * Validates a facility document; throws the ledger's `LoadInputError` (code
+ * LOAD_INPUT_INVALID) listing every issue as `{ field: "plant.circuits.0.subcoolingK", message }`,
+ * so the API maps ledger and plant input errors the same way.
+ */
+export function parseFacilityModel(raw: unknown): FacilityModel {
+  const r = facilityModelSchema.safeParse(raw);
+  if (!r.success)
+    throw new LoadInputError(r.error.issues.map((i) => ({ field: i.path.length ? i.path.map(String).join(".") : "(input)", message: i.message })));
+  return r.data;
+}
 
 export interface RoomFixedPoint extends FixedPointResult {
   roomId: string;
@@ -293,6 +306,7 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
   };
   const stats = { roomsComputed: 0, circuitsComputed: 0 };
   let lastCtx: LedgerContext | undefined;
+  let slots: { room: RoomInput; evs: EvaporatorInput[]; key: string; sol: RoomSolution }[] = [];
   let lastCtxKey = "";
   return {
     get lastStats() {
@@ -311,16 +325,26 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
       // The ledger context (site and room air by psychrometrics, door lookup) depends only on
       // the site, the options, each room's id / set point / RH and the doors: reuse it.
       const ctxKey = `${globalKey}|${model.rooms.map((r) => `${r.id}:${r.setPointC}/${r.rhPct}`).join(",")}|${model.doors.map(hashOf).join(",")}`;
-      if (ctxKey !== lastCtxKey || !lastCtx) {
-        lastCtx = contextFromParsed(ledgerPart(model));
+      const ctxSame = ctxKey === lastCtxKey && lastCtx !== undefined;
+      let lctx = lastCtx;
+      if (!ctxSame || !lctx) {
+        lctx = contextFromParsed(ledgerPart(model));
+        lastCtx = lctx;
         lastCtxKey = ctxKey;
       }
-      const lctx = lastCtx;
       const byRoom = evaporatorsByRoom(model.plant);
       const faces = new Map(model.rooms.map((r) => [r.id, `${r.setPointC}/${r.rhPct}`]));
       const nextRooms = new Map<string, RoomSolution>();
+      const nextSlots: typeof slots = [];
       const solutions = model.rooms.map((room, i) => {
         const evs = byRoom.get(room.id) ?? [];
+        // Same context, same room object, same evaporator objects: nothing it depends on moved.
+        const slot = slots[i];
+        if (ctxSame && slot && slot.room === room && slot.evs.length === evs.length && slot.evs.every((e, k) => e === evs[k])) {
+          nextRooms.set(slot.key, slot.sol);
+          nextSlots.push(slot);
+          return slot.sol;
+        }
         const doors = lctx.doorsByRoom.get(room.id) ?? [];
         const faced: string[] = [];
         for (const s of room.surfaces) if (typeof s.otherSide === "object") faced.push(faces.get(s.otherSide.roomId) ?? "");
@@ -332,9 +356,11 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
           stats.roomsComputed++;
         }
         nextRooms.set(key, sol);
+        nextSlots.push({ room, evs, key, sol });
         return sol;
       });
       roomMemo = nextRooms;
+      slots = nextSlots;
       const results = solutions.map((s) => s.result);
       const sized = solutions.flatMap((s) => s.sized);
       const cctx = circuitContext(model, getFluid);
