@@ -23,6 +23,23 @@ const FLUID_IDS = [
 
 export const fluidIdSchema = z.enum(FLUID_IDS);
 
+/** A number in [lo, hi] whose error message states the allowed range (as the ledger's schemas do). */
+const range = (lo: number, hi: number, unit = "") => {
+  const msg = `must be between ${lo} and ${hi}${unit ? " " + unit : ""}`;
+  return z.number(msg).min(lo, msg).max(hi, msg);
+};
+
+/** A number above 0 and at most hi. */
+const positive = (hi: number, unit = "") => {
+  const msg = `must be greater than 0 and at most ${hi}${unit ? " " + unit : ""}`;
+  return z.number(msg).gt(0, msg).max(hi, msg);
+};
+/** A whole number in [lo, hi]. */
+const intRange = (lo: number, hi: number) => {
+  const msg = `must be a whole number between ${lo} and ${hi}`;
+  return z.int(msg).min(lo, msg).max(hi, msg);
+};
+
 const id = z.string().min(1, "must not be empty").max(100);
 /** Stable schedule tag stored with the item ("EV-1", "CP-3" …); never renumbered. */
 const tag = z
@@ -37,16 +54,16 @@ export const evaporatorFeedSchema = z.discriminatedUnion("type", [
   z.object({
     type: z.literal("dx"),
     /** Superheat at the evaporator outlet, K (common practice 4–8 K). */
-    superheatK: z.number().min(1).max(20).default(6),
+    superheatK: range(1, 20, "K").default(6),
   }),
   z.object({
     type: z.literal("pumped"),
     /** Liquid fed ÷ liquid evaporated (common practice 3–4 for ammonia). */
-    circulationRatio: z.number().min(1.5).max(10).default(4),
+    circulationRatio: range(1.5, 10).default(4),
     /** Pump head, Pa (lifts plus coil and line losses); common practice 150–300 kPa. */
-    pumpHeadPa: z.number().min(10_000).max(1_000_000).default(200_000),
+    pumpHeadPa: range(10_000, 1_000_000, "Pa").default(200_000),
     /** Pump and motor efficiency; all pump input ends up in the refrigerant. */
-    pumpEfficiency: z.number().min(0.1).max(0.9).default(0.45),
+    pumpEfficiency: range(0.1, 0.9).default(0.45),
   }),
 ]);
 
@@ -56,34 +73,34 @@ export const evaporatorSchema = z.object({
   roomId: id,
   circuitId: id,
   /** Number of unit coolers; default from duty and room length. */
-  units: z.int().min(1).max(200).optional(),
+  units: intRange(1, 200).optional(),
   /** Design TD = room air − evaporating temperature, K; default by humidity class. */
-  tdK: z.number().min(1).max(20).optional(),
+  tdK: range(1, 20, "K").optional(),
   feed: evaporatorFeedSchema.default({ type: "dx", superheatK: 6 }),
   defrost: z
     .object({
       type: defrostTypeSchema,
       /** Electric heater (or hot-gas / water equivalent) per W of cooling duty. */
-      heaterWPerWDuty: z.number().min(0).max(3).optional(),
-      minutesPerDefrost: z.number().min(0).max(120).optional(),
-      defrostsPerDay: z.number().min(0).max(24).optional(),
+      heaterWPerWDuty: range(0, 3, "W/W").optional(),
+      minutesPerDefrost: range(0, 120, "min").optional(),
+      defrostsPerDay: range(0, 24, "per day").optional(),
       /** Share of the defrost heat that ends up in the room (common practice ⅓–½). */
-      fractionToRoom: z.number().min(0).max(1).optional(),
+      fractionToRoom: range(0, 1).optional(),
     })
     .optional(),
   /** Air side of the unit cooler: the fan power estimate follows from airflow × pressure. */
   fan: z
     .object({
       /** Fan total pressure, Pa (common practice 100–200 Pa for unit coolers). */
-      staticPressurePa: z.number().min(20).max(1000).default(150),
+      staticPressurePa: range(20, 1000, "Pa").default(150),
       /** Fan and motor efficiency, total-to-electric (common practice 0.4–0.6). */
-      efficiency: z.number().min(0.1).max(0.9).default(0.45),
+      efficiency: range(0.1, 0.9).default(0.45),
       /** Air temperature drop across the coil as a fraction of TD (common practice 0.5–0.7). */
-      airDropFractionOfTd: z.number().min(0.2).max(0.95).default(0.6),
+      airDropFractionOfTd: range(0.2, 0.95).default(0.6),
     })
     .default({ staticPressurePa: 150, efficiency: 0.45, airDropFractionOfTd: 0.6 }),
   /** Largest duty per unit cooler, W, used only for the default unit count. */
-  maxUnitDutyW: z.number().min(500).max(1_000_000).default(40_000),
+  maxUnitDutyW: range(500, 1_000_000, "W").default(40_000),
 });
 
 export const compressorTypeSchema = z.enum(["reciprocating", "screw", "scroll"]);
@@ -93,9 +110,9 @@ export const compressorTypeSchema = z.enum(["reciprocating", "screw", "scroll"])
  * 0.3: highest at the machine's design pressure ratio and falling either side of it.
  */
 export const isentropicCurveSchema = z.object({
-  peak: z.number().min(0.3).max(0.9),
-  designRatio: z.number().min(1.2).max(30),
-  curvature: z.number().min(0).max(1),
+  peak: range(0.3, 0.9),
+  designRatio: range(1.2, 30),
+  curvature: range(0, 1),
 });
 
 /**
@@ -104,25 +121,25 @@ export const isentropicCurveSchema = z.object({
  * a leakage factor describes screws and scrolls over their range.
  */
 export const volumetricCurveSchema = z.object({
-  clearance: z.number().min(0).max(0.2),
-  polytropicExponent: z.number().min(1).max(1.7),
-  leakage: z.number().min(0.5).max(1),
+  clearance: range(0, 0.2),
+  polytropicExponent: range(1, 1.7),
+  leakage: range(0.5, 1),
 });
 
 export const compressorSchema = z.object({
   type: compressorTypeSchema.default("screw"),
   /** A fixed value or a curve over pressure ratio; default by compressor type. */
-  isentropic: z.union([z.number().min(0.3).max(0.9), isentropicCurveSchema]).optional(),
-  volumetric: z.union([z.number().min(0.3).max(1), volumetricCurveSchema]).optional(),
-  motorEfficiency: z.number().min(0.5).max(0.99).default(0.93),
+  isentropic: z.union([range(0.3, 0.9), isentropicCurveSchema]).optional(),
+  volumetric: z.union([range(0.3, 1), volumetricCurveSchema]).optional(),
+  motorEfficiency: range(0.5, 0.99).default(0.93),
   /**
    * Oil-injected screws: the oil cooler holds the discharge at this temperature and takes
    * the rest of the compression heat (common practice 70–90 °C; default 80 °C). Ignored for other types.
    */
-  oilCooledDischargeC: z.number().min(30).max(130).optional(),
+  oilCooledDischargeC: range(30, 130, "°C").optional(),
   /** Installed units of the set and how many of them are standby (schedule only). */
-  units: z.int().min(1).max(50).default(1),
-  standbyUnits: z.int().min(0).max(49).default(0),
+  units: intRange(1, 50).default(1),
+  standbyUnits: intRange(0, 49).default(0),
 });
 
 export const heatRejectionSchema = z.discriminatedUnion("to", [
@@ -132,9 +149,9 @@ export const heatRejectionSchema = z.discriminatedUnion("to", [
     to: z.literal("circuit"),
     circuitId: id,
     /** This (low-stage) circuit's condensing temperature in the cascade exchanger, °C. */
-    condensingC: z.number().min(-50).max(25).default(-5),
+    condensingC: range(-50, 25, "°C").default(-5),
     /** Low-stage condensing − high-stage evaporating temperature, K (common practice 3–6 K). */
-    approachK: z.number().min(1).max(15).default(5),
+    approachK: range(1, 15, "K").default(5),
   }),
 ]);
 
@@ -150,16 +167,16 @@ export const circuitSchema = z.object({
   arrangement: z.enum(["single-stage", "two-stage", "transcritical"]).default("single-stage"),
   compressor: compressorSchema.default({ type: "screw", motorEfficiency: 0.93, units: 1, standbyUnits: 0 }),
   /** Saturated-temperature drop from the coldest evaporator to the compressor, K. */
-  suctionLineAllowanceK: z.number().min(0).max(10).default(1),
+  suctionLineAllowanceK: range(0, 10, "K").default(1),
   /** Superheat at the compressor suction, K; default the DX superheat (0 for pumped feed). */
-  superheatK: z.number().min(0).max(40).optional(),
+  superheatK: range(0, 40, "K").optional(),
   /** Liquid subcooling at the condenser outlet, K (common practice 2–5 K). */
-  subcoolingK: z.number().min(0).max(30).default(3),
+  subcoolingK: range(0, 30, "K").default(3),
   /** Blends: which saturation temperature "evaporating/condensing" means (EN 12900: dew). */
   tempConvention: z.enum(["dew", "bubble", "mean"]).default("dew"),
   heatRejection: heatRejectionSchema,
   /** Two-stage only: intermediate saturation temperature, °C; default the geometric-mean pressure. */
-  intermediateC: z.number().min(-40).max(30).optional(),
+  intermediateC: range(-40, 30, "°C").optional(),
   /**
    * Stable tags of the circuit's own schedule items; when absent they are derived from the
    * circuit tag (CP-<tag>, IC-<tag>, LPR-<tag>, CHX-<tag>), so they stay put either way.
@@ -178,14 +195,14 @@ export const condenserSchema = z.object({
    * practice): air-cooled 12 K over dry bulb, evaporative 10 K over wet bulb, water-cooled
    * 8 K over the entering water. For R744 gas coolers: outlet − dry bulb (default 3 K).
    */
-  approachK: z.number().min(1).max(30).optional(),
+  approachK: range(1, 30, "K").optional(),
   /** user-set: the condensing temperature itself, °C. */
-  condensingC: z.number().min(-10).max(70).optional(),
+  condensingC: range(-10, 70, "°C").optional(),
   /** water-cooled: entering water, °C; default the wet bulb + 5 K (a cooling tower's approach). */
-  waterInC: z.number().min(0).max(50).optional(),
+  waterInC: range(0, 50, "°C").optional(),
   /** Fan (and spray pump) input per kW rejected, W/kW; default air 20, evaporative 12, water 0. */
-  fanPowerWPerKw: z.number().min(0).max(100).optional(),
-  units: z.int().min(1).max(50).default(1),
+  fanPowerWPerKw: range(0, 100, "W/kW").optional(),
+  units: intRange(1, 50).default(1),
 });
 
 const ratedEvaporatorSchema = z.object({
@@ -193,15 +210,15 @@ const ratedEvaporatorSchema = z.object({
   tag,
   roomId: id,
   circuitId: id,
-  units: z.int().min(1).max(200),
-  standbyUnits: z.int().min(0).max(199).default(0),
+  units: intRange(1, 200),
+  standbyUnits: intRange(0, 199).default(0),
   /** Capacity of one unit at its rating conditions, W. */
-  ratedCapacityWPerUnit: z.number().positive().max(5_000_000),
+  ratedCapacityWPerUnit: positive(5_000_000, "W"),
   rating: z.object({
     /** Air-on temperature at rating, °C. */
-    airOnC: z.number().min(-60).max(40),
+    airOnC: range(-60, 40, "°C"),
     /** Rating TD = air-on − evaporating temperature, K. */
-    tdK: z.number().min(1).max(25),
+    tdK: range(1, 25, "K"),
     feed: z.enum(["dx", "pumped"]),
   }),
 });
@@ -211,19 +228,19 @@ const installedCompressorSchema = z.object({
   tag,
   circuitId: id,
   type: compressorTypeSchema,
-  units: z.int().min(1).max(50),
-  standbyUnits: z.int().min(0).max(49).default(0),
-  motorEfficiency: z.number().min(0.5).max(0.99).default(0.93),
+  units: intRange(1, 50),
+  standbyUnits: intRange(0, 49).default(0),
+  motorEfficiency: range(0.5, 0.99).default(0.93),
   rating: z.discriminatedUnion("by", [
-    z.object({ by: z.literal("swept-volume"), sweptVolumeM3sPerUnit: z.number().positive().max(10) }),
+    z.object({ by: z.literal("swept-volume"), sweptVolumeM3sPerUnit: positive(10, "m³/s") }),
     z.object({
       by: z.literal("rated"),
-      capacityWPerUnit: z.number().positive().max(20_000_000),
-      shaftPowerWPerUnit: z.number().positive().max(10_000_000),
-      evaporatingC: z.number().min(-70).max(20),
-      condensingC: z.number().min(-30).max(70),
-      superheatK: z.number().min(0).max(40).default(0),
-      subcoolingK: z.number().min(0).max(30).default(0),
+      capacityWPerUnit: positive(20_000_000, "W"),
+      shaftPowerWPerUnit: positive(10_000_000, "W"),
+      evaporatingC: range(-70, 20, "°C"),
+      condensingC: range(-30, 70, "°C"),
+      superheatK: range(0, 40, "K").default(0),
+      subcoolingK: range(0, 30, "K").default(0),
     }),
   ]),
 });
@@ -232,12 +249,12 @@ const installedCondenserSchema = z.object({
   id,
   tag,
   condenserId: id,
-  units: z.int().min(1).max(50),
-  standbyUnits: z.int().min(0).max(49).default(0),
+  units: intRange(1, 50),
+  standbyUnits: intRange(0, 49).default(0),
   /** Heat rejection of one unit at the rating approach, W. */
-  ratedHeatRejectionWPerUnit: z.number().positive().max(50_000_000),
+  ratedHeatRejectionWPerUnit: positive(50_000_000, "W"),
   /** Condensing − air / wet bulb / water temperature at rating, K. */
-  ratingApproachK: z.number().min(1).max(30),
+  ratingApproachK: range(1, 30, "K"),
 });
 
 export const installedPlantSchema = z.object({
@@ -248,12 +265,12 @@ export const installedPlantSchema = z.object({
 
 export const plantOptionsSchema = z.object({
   /** Relative tolerance of the fan/defrost fixed point on each room's design duty. */
-  fixedPointTolerance: z.number().min(1e-9).max(1e-2).default(1e-6),
-  fixedPointMaxIterations: z.int().min(2).max(200).default(30),
+  fixedPointTolerance: range(1e-9, 1e-2).default(1e-6),
+  fixedPointMaxIterations: intRange(2, 200).default(30),
   /** Design temperature of the low side at standstill, °C (common practice 32 °C outdoors, 27 °C indoors). */
-  lowSideStandstillC: z.number().min(10).max(55).default(32),
+  lowSideStandstillC: range(10, 55, "°C").default(32),
   /** High-side design temperature, °C; default 55 °C air-cooled, 43 °C evaporative / water (common practice). */
-  highSideDesignC: z.number().min(30).max(75).optional(),
+  highSideDesignC: range(30, 75, "°C").optional(),
 });
 
 function duplicates(values: string[]): string[] {
