@@ -266,6 +266,25 @@ function circuitContext(model: FacilityModel, getFluid: (id: FluidId) => Fluid) 
   };
 }
 
+/**
+ * Deep equality of JSON-like values (what a parsed model is made of), with an identity fast
+ * path; cheaper than serialising both sides when a re-parsed document shares no objects.
+ */
+export function sameJson(a: unknown, b: unknown): boolean {
+  if (a === b) return true;
+  if (typeof a !== "object" || typeof b !== "object" || a === null || b === null) return false;
+  if (Array.isArray(a)) {
+    if (!Array.isArray(b) || a.length !== b.length) return false;
+    for (let i = 0; i < a.length; i++) if (!sameJson(a[i], b[i])) return false;
+    return true;
+  }
+  if (Array.isArray(b)) return false;
+  const ka = Object.keys(a);
+  if (ka.length !== Object.keys(b).length) return false;
+  for (const k of ka) if (!sameJson((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k])) return false;
+  return true;
+}
+
 /** A small FNV-1a hash of a string, as 8 hex digits (the memo key; not for security). */
 export function hashString(s: string): string {
   let h = 0x811c9dc5;
@@ -295,11 +314,13 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
   const getFluid = fluidGetter(opts);
   let roomMemo = new Map<string, RoomSolution>();
   let circuitMemo = new Map<string, { result: CircuitResult | undefined; warnings: PlantWarning[] }>();
+  // The serialised input is itself the key (the native string hash of a Map is faster than
+  // hashing it again in JS); cached per object so unchanged objects are not re-serialised.
   const hashes = new WeakMap<object, string>();
   const hashOf = (o: object) => {
     let k = hashes.get(o);
     if (k === undefined) {
-      k = hashString(JSON.stringify(o));
+      k = JSON.stringify(o);
       hashes.set(o, k);
     }
     return k;
@@ -307,6 +328,7 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
   const stats = { roomsComputed: 0, circuitsComputed: 0 };
   let lastCtx: LedgerContext | undefined;
   let slots: { room: RoomInput; evs: EvaporatorInput[]; key: string; sol: RoomSolution }[] = [];
+  let lastDoors: unknown = undefined;
   let lastCtxKey = "";
   return {
     get lastStats() {
@@ -324,8 +346,9 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
       const globalKey = hashString(JSON.stringify([shared, model.plant.options]));
       // The ledger context (site and room air by psychrometrics, door lookup) depends only on
       // the site, the options, each room's id / set point / RH and the doors: reuse it.
-      const ctxKey = `${globalKey}|${model.rooms.map((r) => `${r.id}:${r.setPointC}/${r.rhPct}`).join(",")}|${model.doors.map(hashOf).join(",")}`;
-      const ctxSame = ctxKey === lastCtxKey && lastCtx !== undefined;
+      const ctxKey = `${globalKey}|${model.rooms.map((r) => `${r.id}:${r.setPointC}/${r.rhPct}`).join(",")}`;
+      const ctxSame = ctxKey === lastCtxKey && lastCtx !== undefined && sameJson(model.doors, lastDoors);
+      lastDoors = model.doors;
       let lctx = lastCtx;
       if (!ctxSame || !lctx) {
         lctx = contextFromParsed(ledgerPart(model));
@@ -340,7 +363,7 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
         const evs = byRoom.get(room.id) ?? [];
         // Same context, same room object, same evaporator objects: nothing it depends on moved.
         const slot = slots[i];
-        if (ctxSame && slot && slot.room === room && slot.evs.length === evs.length && slot.evs.every((e, k) => e === evs[k])) {
+        if (ctxSame && slot && sameJson(slot.room, room) && sameJson(slot.evs, evs)) {
           nextRooms.set(slot.key, slot.sol);
           nextSlots.push(slot);
           return slot.sol;
