@@ -169,6 +169,8 @@ describe("cascade and transcritical CO2", () => {
     expect(sys.circuitIds.sort()).toEqual(["lt", "mt"]);
     // Whole chain, room air to ambient: entropy sums and the Clausius form agree, COP < Carnot.
     expect(Math.abs(sys.entropyGenerationW_K - sys.clausiusW_K) / sys.clausiusW_K).toBeLessThan(1e-6);
+    // First law over the chain: rooms + all work in = heat rejected to ambient, to 0.1 %.
+    expect(sys.energyBalance.relativeError).toBeLessThan(1e-3);
     expect(sys.cop).toBeLessThan(sys.copCarnot!);
     const schedule = buildSchedule(res.plant);
     expect(schedule.some((r) => r.kind === "cascade-hx" && r.tag === "CHX-C-1")).toBe(true);

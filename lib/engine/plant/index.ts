@@ -60,7 +60,7 @@ export { computePlant, fluidsNeeded, systemsOf } from "./plant";
 export type { PlantResult, SystemResult, CondenserResult } from "./plant";
 export { safetyCaution, SAFETY_GROUP, CODES_NOTICE } from "./safety";
 export type { SafetyCaution } from "./safety";
-export { buildSchedule } from "./schedule";
+export { buildSchedule, nextTag } from "./schedule";
 export type { ScheduleItem, ScheduleItemKind } from "./schedule";
 export { rerateInstalled } from "./rerate";
 export type { RerateConditions, RerateResult, CircuitRerate, RoomRerate } from "./rerate";

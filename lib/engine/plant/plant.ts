@@ -3,7 +3,8 @@
  * and the safety cautions for the refrigerants used.
  */
 import type { FluidId } from "../thermo/types";
-import { computeCircuits, K0, type CircuitContext, type CircuitResult, type PlantWarning } from "./circuit";
+import { computeCircuits, ENERGY_CLOSURE, K0, type CircuitContext, type CircuitResult, type PlantWarning } from "./circuit";
+import { PlantError } from "./errors";
 import type { EvaporatorSizing } from "./evaporator";
 import { CODES_NOTICE, safetyCaution, type SafetyCaution } from "./safety";
 import type { PlantInput } from "./schema";
@@ -27,6 +28,8 @@ export interface SystemResult {
   entropyGenerationW_K: number;
   /** Q_rej/T_sink − Σ Q_room/T_room (Clausius), W/K. */
   clausiusW_K: number;
+  /** Rooms + work in, heat rejected to ambient out (closes to 0.1 % or throws). */
+  energyBalance: { inW: number; outW: number; relativeError: number };
 }
 
 export interface CondenserResult {
@@ -101,6 +104,14 @@ export function systemsOf(circuits: CircuitResult[]): SystemResult[] {
       roomS += c.roomEntropyW_K;
     }
     const sinkK = t.sinkC + K0;
+    const inW = roomW + workW;
+    const relativeError = Math.abs(t.heatRejectedW - inW) / inW;
+    if (!(relativeError <= ENERGY_CLOSURE))
+      throw new PlantError(
+        "ENERGY_BALANCE",
+        `${t.tag}: the chain rejects ${t.heatRejectedW.toFixed(0)} W but takes in ${inW.toFixed(0)} W (${(relativeError * 100).toFixed(3)} %)`,
+        `plant.circuits`,
+      );
     const tL = roomW / roomS;
     const copCarnot = roomW > 0 && sinkK > tL ? tL / (sinkK - tL) : null;
     const cop = roomW / workW;
@@ -116,6 +127,7 @@ export function systemsOf(circuits: CircuitResult[]): SystemResult[] {
       secondLawEfficiency: copCarnot === null ? null : cop / copCarnot,
       entropyGenerationW_K: sgen,
       clausiusW_K: t.heatRejectedW / sinkK - roomS,
+      energyBalance: { inW, outW: t.heatRejectedW, relativeError },
     });
   }
   return out;

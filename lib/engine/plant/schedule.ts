@@ -171,3 +171,17 @@ export function buildSchedule(plant: PlantResult): ScheduleItem[] {
   }
   return rows;
 }
+
+/**
+ * The next free tag with a prefix ("EV" → "EV-7" when EV-1…EV-6 exist): one above the highest
+ * number in use, so a removed item's number is never handed to a new one.
+ */
+export function nextTag(prefix: string, existing: Iterable<string>): string {
+  const re = new RegExp(`^${prefix.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}-(\\d+)$`);
+  let max = 0;
+  for (const t of existing) {
+    const m = re.exec(t);
+    if (m) max = Math.max(max, Number(m[1]));
+  }
+  return `${prefix}-${max + 1}`;
+}
