@@ -24,5 +24,6 @@ smtp_start
 log "building the app"
 node_modules/.bin/next build >"$RIMEPLAN_RUN_DIR/build.log" 2>&1 || { tail -40 "$RIMEPLAN_RUN_DIR/build.log"; exit 1; }
 node_modules/.bin/tsx seeds/print-signins.ts "$APP_URL"
-trap 'smtp_stop' EXIT
-exec node_modules/.bin/next start -p "$PORT"
+# Not exec: the trap stops the fake SMTP server when the app stops (Ctrl-C).
+trap 'smtp_stop' EXIT INT TERM
+node_modules/.bin/next start -p "$PORT"

@@ -36,4 +36,7 @@ const server = new SMTPServer({
     });
   },
 });
-server.listen(port, "127.0.0.1", () => console.log(`fake SMTP listening on 127.0.0.1:${port}, writing to ${dir}`));
+server.listen(port, "127.0.0.1", () => {
+  if (process.env.SMTP_PID_FILE) writeFileSync(process.env.SMTP_PID_FILE, String(process.pid));
+  console.log(`fake SMTP listening on 127.0.0.1:${port}, writing to ${dir}`);
+});

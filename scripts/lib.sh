@@ -99,8 +99,8 @@ smtp_start() {
     log "fake SMTP already listening on 127.0.0.1:$SMTP_PORT"
     return
   fi
-  (cd "$ROOT" && nohup node_modules/.bin/tsx scripts/fake-smtp.ts >"$RIMEPLAN_RUN_DIR/smtp.log" 2>&1 &
-    echo $! >"$RIMEPLAN_RUN_DIR/smtp.pid")
+  # The server writes its own pid (SMTP_PID_FILE) once listening, so smtp_stop ends it.
+  (cd "$ROOT" && SMTP_PID_FILE="$RIMEPLAN_RUN_DIR/smtp.pid" nohup node --import tsx scripts/fake-smtp.ts >"$RIMEPLAN_RUN_DIR/smtp.log" 2>&1 &)
   for _ in $(seq 1 50); do
     (exec 3<>"/dev/tcp/127.0.0.1/$SMTP_PORT") 2>/dev/null && { log "fake SMTP on 127.0.0.1:$SMTP_PORT, mail in $MAIL_CATCHER_DIR"; return; }
     sleep 0.2
