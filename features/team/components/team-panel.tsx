@@ -74,7 +74,7 @@ export function TeamPanel({ ws, canManage, myId }: { ws: string; canManage: bool
                     )}
                   </td>
                   <td className="py-1.5 text-right">
-                    {canManage ? <Button variant="danger" onClick={() => remove.mutate(m.userId)} aria-label={`Remove ${m.email}`}>Remove</Button> : null}
+                    {canManage ? <Button variant="danger" onClick={() => { if (window.confirm(`Remove ${m.email} from this workspace? Their sessions end at once.`)) remove.mutate(m.userId); }} aria-label={`Remove ${m.email}`}>Remove</Button> : null}
                   </td>
                 </tr>
               ))}
