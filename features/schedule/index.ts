@@ -1,0 +1,3 @@
+export type { ScheduleDto, ScheduleRowDto } from "./schema";
+export { scheduleChanges, markText, type ChangeMark, type ScheduleChanges } from "./changes";
+export { scheduleKindWord } from "./columns";

@@ -1,0 +1,40 @@
+import { z } from "zod";
+import { scenarioChangesSchema } from "@/lib/engine/stocking/schema";
+import type { StockingCheckResult, Verdict } from "@/lib/engine/stocking";
+
+export { scenarioChangesSchema };
+
+export const scenarioParams = z.object({
+  ws: z.string().min(1),
+  id: z.string().uuid("Facility id must be a UUID"),
+  sid: z.string().uuid("Stocking check id must be a UUID"),
+});
+
+export const createScenarioSchema = z.object({
+  name: z.string().trim().min(1, "Name the stocking check (1 to 120 characters)").max(120, "Name must be at most 120 characters"),
+  changes: scenarioChangesSchema,
+});
+
+export const emailScenarioSchema = z.object({
+  to: z
+    .array(z.email("Each recipient must be an e-mail address"))
+    .min(1, "Give at least one recipient")
+    .max(10, "At most 10 recipients"),
+  note: z.string().max(1000, "The note must be at most 1000 characters").optional(),
+});
+
+export interface ScenarioDto {
+  id: string;
+  name: string;
+  baseVersion: number;
+  changes: z.output<typeof scenarioChangesSchema>;
+  result: StockingCheckResult | null;
+  verdict: Verdict | null;
+  author: { name: string; email: string } | null;
+  createdAt: string;
+  acceptedAt: string | null;
+  appliedAt: string | null;
+  appliedRevision: number | null;
+}
+
+export type CreateScenarioInput = z.input<typeof createScenarioSchema>;
