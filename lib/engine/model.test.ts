@@ -344,6 +344,42 @@ describe("installed plant re-rating", () => {
   });
 });
 
+describe("installed cascade re-rating", () => {
+  it("lets a small high stage limit its CO2 low stage, and uses all of the high stage", () => {
+    const p = structuredClone(plantFixture);
+    p.circuits[0] = {
+      id: "lt",
+      tag: "C-1",
+      refrigerant: "R744",
+      compressor: { type: "reciprocating" },
+      heatRejection: { to: "circuit", circuitId: "mt", condensingC: -5, approachK: 5 },
+    };
+    p.installed = {
+      evaporators: [
+        { id: "i1", tag: "EV-1", roomId: "frozen-store", circuitId: "lt", units: 2, ratedCapacityWPerUnit: 60_000, rating: { airOnC: -25, tdK: 6, feed: "pumped" } },
+        { id: "i3", tag: "EV-3", roomId: "apples", circuitId: "mt", units: 1, ratedCapacityWPerUnit: 30_000, rating: { airOnC: 2, tdK: 5, feed: "dx" } },
+      ],
+      compressors: [
+        { id: "c-lt", tag: "CP-1", circuitId: "lt", type: "reciprocating", units: 1, rating: { by: "swept-volume", sweptVolumeM3sPerUnit: 0.05 } },
+        // Rated at the very point it is re-rated at, so it delivers exactly 50 kW.
+        { id: "c-mt", tag: "CP-2", circuitId: "mt", type: "screw", units: 1, rating: { by: "rated", capacityWPerUnit: 50_000, shaftPowerWPerUnit: 12_000, evaporatingC: -11, condensingC: 33, superheatK: 6, subcoolingK: 3 } },
+      ],
+      condensers: [],
+    };
+    const r = rerateInstalled(model(p), { circuits: { mt: { suctionC: -11, condensingC: 33 } } });
+    const lt = r.circuits.find((c) => c.circuitId === "lt")!;
+    const mt = r.circuits.find((c) => c.circuitId === "mt")!;
+    expect(mt.compressorCapacityW).toBeCloseTo(50_000, 3);
+    expect(lt.limitedBy).toBe("high-stage");
+    // Energy bookkeeping (first law): the high stage's 50 kW goes to the low stage's rejected
+    // heat plus its own room; nothing is lost or double counted.
+    const apples = r.rooms.find((x) => x.roomId === "apples")!;
+    expect(mt.cascadeLoadW + apples.availableW).toBeCloseTo(50_000, 3);
+    const lowReject = lt.availableW * (1 + lt.compressorShaftPowerW / lt.compressorCapacityW);
+    expect(lowReject).toBeCloseTo(mt.cascadeLoadW, 3);
+  });
+});
+
 describe("site wet bulb from RH", () => {
   it("matches Stull's published check value", () => {
     // Stull (2011), J. Appl. Meteor. Climatol. 50: T = 20 °C, RH = 50 % → Tw = 13.7 °C.

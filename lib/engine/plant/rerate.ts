@@ -40,7 +40,9 @@ export interface CircuitRerate {
   /** Refrigeration the installed condensers can reject heat for; null if none recorded. */
   condenserLimitW: number | null;
   availableW: number;
-  limitedBy: "compressors" | "evaporators" | "condenser";
+  limitedBy: "compressors" | "evaporators" | "condenser" | "high-stage";
+  /** Cascade high stages: the part of availableW their low stages' rejected heat takes, W. */
+  cascadeLoadW: number;
 }
 
 export interface RoomRerate {
@@ -108,6 +110,7 @@ export function rerateInstalled(model: FacilityModel, conditions: RerateConditio
   const warnings: PlantWarning[] = [];
   const out: CircuitRerate[] = [];
   const evapCap = new Map<string, Map<string, number>>(); // circuit → room → W
+  const perWOf = new Map<string, number>();
   const rejectionNeed = new Map<string, { circuit: CircuitRerate; perW: number; condenserId: string }>();
 
   model.plant.circuits.forEach((c) => {
@@ -186,9 +189,11 @@ export function rerateInstalled(model: FacilityModel, conditions: RerateConditio
       condenserLimitW: null,
       availableW: Math.min(compressorCapacityW, serves),
       limitedBy: compressorCapacityW <= serves ? "compressors" : "evaporators",
+      cascadeLoadW: 0,
     };
     out.push(r);
     const perW = 1 + (compressorCapacityW > 0 ? compressorShaftPowerW / compressorCapacityW : now.shaftWPerW);
+    perWOf.set(c.id, perW);
     if (hr.to === "condenser") rejectionNeed.set(c.id, { circuit: r, perW, condenserId: hr.condenserId });
   });
 
@@ -217,10 +222,30 @@ export function rerateInstalled(model: FacilityModel, conditions: RerateConditio
     }
   }
 
+  // Cascades: a high stage carries its low stages' rejected heat before its own rooms. When
+  // it cannot carry all of it and its own evaporators, both are cut back in proportion.
+  const byId = new Map(out.map((c) => [c.circuitId, c]));
+  for (const hi of out) {
+    const lows = model.plant.circuits.filter((o) => o.heatRejection.to === "circuit" && o.heatRejection.circuitId === hi.circuitId);
+    if (lows.length === 0) continue;
+    const lowRates = lows.map((l) => ({ r: byId.get(l.id), perW: perWOf.get(l.id) ?? 1 })).filter((x) => x.r !== undefined) as { r: CircuitRerate; perW: number }[];
+    const lowHeat = lowRates.reduce((a, x) => a + x.r.availableW * x.perW, 0);
+    const demand = lowHeat + hi.evaporatorCapacityW;
+    // hi.availableW here is its compressors, already capped by its condenser.
+    const factor = demand > 0 ? Math.min(1, hi.availableW / demand) : 1;
+    for (const x of lowRates)
+      if (factor < 1) {
+        x.r.availableW *= factor;
+        x.r.limitedBy = "high-stage";
+      }
+    hi.cascadeLoadW = lowHeat * factor;
+    hi.availableW = Math.min(hi.availableW, hi.evaporatorCapacityW * factor + hi.cascadeLoadW);
+  }
+
   const rooms = new Map<string, RoomRerate>();
   for (const c of out) {
     const byRoom = evapCap.get(c.circuitId)!;
-    const share = c.evaporatorCapacityW > 0 ? Math.min(1, c.availableW / c.evaporatorCapacityW) : 0;
+    const share = c.evaporatorCapacityW > 0 ? Math.min(1, (c.availableW - c.cascadeLoadW) / c.evaporatorCapacityW) : 0;
     for (const [roomId, q] of byRoom) {
       const r = rooms.get(roomId) ?? { roomId, setPointC: setPoint(roomId), evaporatorCapacityW: 0, availableW: 0 };
       r.evaporatorCapacityW += q;
