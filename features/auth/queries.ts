@@ -3,11 +3,10 @@ import { eq } from "drizzle-orm";
 import bcrypt from "bcryptjs";
 import { db } from "@/db/client";
 import { sessions, users } from "@/db/schema";
-import { TOKEN_MINUTES } from "@/lib/email-tokens";
+import { issueEmailToken, TOKEN_MINUTES } from "@/lib/email-tokens";
+import { appLink, sendMail } from "@/lib/mail";
 
-export { issueEmailToken } from "@/lib/email-tokens";
-export const LINK_MINUTES = TOKEN_MINUTES.signin_link;
-export const RESET_MINUTES = TOKEN_MINUTES.password_reset;
+export { issueEmailToken };
 
 export async function findUserByEmail(email: string) {
   const [u] = await db.select().from(users).where(eq(users.email, email)).limit(1);
@@ -25,4 +24,36 @@ export async function setPassword(userId: string, password: string): Promise<voi
     await tx.update(users).set({ passwordHash: hash }).where(eq(users.id, userId));
     await tx.delete(sessions).where(eq(sessions.userId, userId));
   });
+}
+
+const TOKEN_MAIL = {
+  signin_link: {
+    path: "/signin/link",
+    subject: "Your Rimeplan sign-in link",
+    text: (link: string) =>
+      `Sign in to Rimeplan: ${link}\n\nThe link works once and expires in ${TOKEN_MINUTES.signin_link} minutes. If you did not ask for it, ignore this message.`,
+    answer: "If that address has an account, a sign-in link is on its way.",
+  },
+  password_reset: {
+    path: "/reset",
+    subject: "Reset your Rimeplan password",
+    text: (link: string) =>
+      `Choose a new password: ${link}\n\nThe link works once and expires in ${TOKEN_MINUTES.password_reset} minutes. Resetting signs you out everywhere. If you did not ask for it, ignore this message.`,
+    answer: "If that address has an account, a reset link is on its way.",
+  },
+} as const;
+
+/**
+ * E-mails a one-time link of a purpose if the address has an account. The answer is the same
+ * either way, so the form does not reveal who has an account.
+ */
+export async function mailTokenLink(email: string, purpose: keyof typeof TOKEN_MAIL): Promise<{ ok: true; message: string }> {
+  const t = TOKEN_MAIL[purpose];
+  const user = await findUserByEmail(email);
+  if (user) {
+    const token = await issueEmailToken(user.id, purpose);
+    const link = appLink(`${t.path}?token=${encodeURIComponent(token)}`);
+    await sendMail({ to: user.email, subject: t.subject, text: t.text(link) });
+  }
+  return { ok: true, message: t.answer };
 }

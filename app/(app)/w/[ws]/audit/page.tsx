@@ -1,8 +1,6 @@
-import { and, desc, eq, inArray, isNull, or } from "drizzle-orm";
 import { pageAccess } from "@/lib/page-access";
 import { Forbidden } from "@/components/layout/forbidden";
-import { db } from "@/db/client";
-import { auditLog, memberships } from "@/db/schema";
+import { listAudit } from "@/features/audit/queries";
 
 export const metadata = { title: "Audit log" };
 
@@ -10,18 +8,7 @@ export default async function AuditPage({ params }: PageProps<"/w/[ws]/audit">) 
   const { ws } = await params;
   const a = await pageAccess(ws, "audit.read");
   if (!a.ok) return <Forbidden message={a.message} />;
-  const wsId = a.access.workspace.id;
-  const rows = await db
-    .select()
-    .from(auditLog)
-    .where(
-      or(
-        eq(auditLog.workspaceId, wsId),
-        and(isNull(auditLog.workspaceId), inArray(auditLog.actorId, db.select({ id: memberships.userId }).from(memberships).where(eq(memberships.workspaceId, wsId)))),
-      ),
-    )
-    .orderBy(desc(auditLog.id))
-    .limit(200);
+  const rows = await listAudit(a.access.workspace.id, { limit: 200 });
   return (
     <main className="p-4">
       <p className="mb-2 text-xs text-muted">Append-only record of sign-ins, role changes, model edits, scenario applications and exports. Latest 200.</p>

@@ -1,8 +1,6 @@
 import { z } from "zod";
-import { and, desc, eq, inArray, isNull, lt, or } from "drizzle-orm";
 import { route } from "@/lib/api";
-import { db } from "@/db/client";
-import { auditLog, memberships } from "@/db/schema";
+import { listAudit } from "@/features/audit/queries";
 
 export const GET = route({
   params: z.object({ ws: z.string().min(1) }),
@@ -12,27 +10,7 @@ export const GET = route({
   }),
   action: "audit.read",
   handler: async ({ access, query }) => {
-    const rows = await db
-      .select()
-      .from(auditLog)
-      .where(
-        and(
-          or(
-            eq(auditLog.workspaceId, access!.workspace.id),
-            // Sign-ins belong to no workspace: show those of this workspace's members.
-            and(
-              isNull(auditLog.workspaceId),
-              inArray(
-                auditLog.actorId,
-                db.select({ id: memberships.userId }).from(memberships).where(eq(memberships.workspaceId, access!.workspace.id)),
-              ),
-            ),
-          ),
-          query.before ? lt(auditLog.id, query.before) : undefined,
-        ),
-      )
-      .orderBy(desc(auditLog.id))
-      .limit(query.limit);
+    const rows = await listAudit(access!.workspace.id, query);
     return { entries: rows.map((r) => ({ ...r, at: r.at.toISOString() })) };
   },
 });
