@@ -248,7 +248,10 @@ describe("equipment schedule", () => {
     const p = structuredClone(plantFixture);
     p.evaporators.splice(2, 1);
     p.evaporators.push({ id: "ev-apples-2", tag: "EV-9", roomId: "apples", circuitId: "mt" });
-    const again = buildSchedule(computeFacility(model(p)).plant).map((r) => r.tag);
+    p.options = { electricalSupply: "400 V 3~ 50 Hz" };
+    const withSupply = buildSchedule(computeFacility(model(p)).plant);
+    expect(withSupply.find((r) => r.tag === "CP-C-2")!.supply).toBe("400 V 3~ 50 Hz");
+    const again = withSupply.map((r) => r.tag);
     expect(again.filter((t) => t.startsWith("EV"))).toEqual(["EV-1", "EV-2", "EV-9", "EV-4", "EV-5"]);
   });
 });

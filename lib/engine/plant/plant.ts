@@ -52,6 +52,8 @@ export interface PlantResult {
   warnings: PlantWarning[];
   cautions: SafetyCaution[];
   codesNotice: string;
+  /** The site's electrical supply from `plant.options`, for the schedule; undefined if not given. */
+  electricalSupply?: string;
   totals: {
     refrigerationW: number;
     shaftPowerW: number;
@@ -179,6 +181,7 @@ export function assemblePlant(sized: EvaporatorSizing[], circuits: CircuitResult
     warnings,
     cautions: fluidsNeeded(plant).map(safetyCaution),
     codesNotice: CODES_NOTICE,
+    electricalSupply: plant.options.electricalSupply,
     totals: {
       refrigerationW,
       shaftPowerW,

@@ -30,6 +30,8 @@ export interface ScheduleItem {
   airflowM3s?: number;
   /** Electrical input of the row (fans, motors, heaters as applicable), W. */
   electricalW: number;
+  /** Electrical supply (the site's, from plant options) for rows that draw power. */
+  supply?: string;
   designPressurePa?: { lowSide?: number; highSide?: number };
   roomId?: string;
   circuitId?: string;
@@ -169,6 +171,7 @@ export function buildSchedule(plant: PlantResult): ScheduleItem[] {
       designPressurePa: { highSide: Math.max(...on.map((c) => c.designPressures.highSide.pPa)) },
     });
   }
+  if (plant.electricalSupply) for (const r of rows) if (r.electricalW > 0) r.supply = plant.electricalSupply;
   return rows;
 }
 

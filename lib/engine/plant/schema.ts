@@ -271,6 +271,8 @@ export const plantOptionsSchema = z.object({
   lowSideStandstillC: range(10, 55, "°C").default(32),
   /** High-side design temperature, °C; default 55 °C air-cooled, 43 °C evaporative / water (common practice). */
   highSideDesignC: range(30, 75, "°C").optional(),
+  /** The site's electrical supply as the schedule should state it, e.g. "400 V 3~ 50 Hz". */
+  electricalSupply: z.string().max(60, "must be at most 60 characters").optional(),
 });
 
 function duplicates(values: string[]): string[] {
