@@ -175,3 +175,35 @@ test("session cookie is http-only", async ({ browser }) => {
   await shot(page, "purchaser-facilities");
   await c.close();
 });
+
+test("units and theme are a per-user preference: IP shows °F and ft, dark theme applies", async ({ browser }) => {
+  // a dedicated person so the other tests keep SI
+  const owner = await browser.newContext({ storageState: stateOf("owner") });
+  const op = await owner.newPage();
+  const email = `ip-user-${Date.now()}@example.test`;
+  expect((await op.request.post(`/api/v1/workspaces/${WS}/invites`, { data: { email, role: "viewer" } })).status()).toBe(201);
+  const token = new URL(await waitForMailLink(email, "invited you")).searchParams.get("token");
+  expect((await op.request.post("/api/v1/invites/accept", { data: { token, name: "Imperial Ivy", password: "imperial-units-1" } })).status()).toBe(200);
+  await owner.close();
+
+  const c = await browser.newContext();
+  const page = await c.newPage();
+  await page.goto("/signin");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill("imperial-units-1");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByText("your role: viewer")).toBeVisible();
+  await page.goto("/account");
+  await page.getByLabel(/IP — °F/).check();
+  await page.getByLabel("dark").check();
+  await page.getByRole("button", { name: "Save" }).click();
+  await page.waitForLoadState("load");
+  await page.goto(`/w/${WS}`);
+  const row = page.getByRole("row", { name: /Harrowfield Cold Store — main building/ });
+  // 32 °C = 89.6 °F, 150 m = 492.13 ft (NIST SP 811: °F = 1.8·°C + 32; 1 ft = 0.3048 m)
+  await expect(row).toContainText("89.6 °F");
+  await expect(row).toContainText("492.13 ft");
+  await expect(page.locator("html")).toHaveClass(/dark/);
+  await shot(page, "viewer-ip-dark");
+  await c.close();
+});
