@@ -303,7 +303,12 @@ function computeOneCircuit(
 ): CircuitResult | undefined {
   const path = `plant.circuits.${index}`;
   const ref = { kind: "circuit" as const, id: c.id, tag: c.tag };
-  const fluid = ctx.getFluid(c.refrigerant);
+  let fluid: Fluid;
+  try {
+    fluid = ctx.getFluid(c.refrigerant);
+  } catch (err) {
+    throw new PlantError("FLUID_NOT_LOADED", err instanceof Error ? err.message : String(err), `${path}.refrigerant`);
+  }
   const evaps = sized.filter((s) => s.dutyW > 0);
   const reservoirs: ColdReservoir[] = [];
   const evapTemps: { tC: number; field: string }[] = [];
