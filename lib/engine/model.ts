@@ -136,7 +136,8 @@ function solveRoom(room: RoomInput, index: number, evs: EvaporatorInput[], lctx:
     const sized = sizeRoomEvaporators(room, evs, x);
     const result = computeRoomLoad({ ...room, ...roomFeedback(sized) }, lctx);
     last = { x, result, sized };
-    return result.designCapacityW;
+    // A room whose ledger nets out below zero (credited colder sides) needs no cooling duty.
+    return Math.max(0, result.designCapacityW);
   };
   const whPerW = feedbackWhPerDayPerW(room, evs);
   const fp = solveDutyFixedPoint(f, {

@@ -125,6 +125,8 @@ export interface CircuitResult {
   };
   energyBalance: { inW: number; outW: number; relativeError: number };
   statePoints: StatePoint[];
+  /** State-point ids in p–h drawing order (see CycleResult.chartPath). */
+  chartPath: string[];
   designPressures: { lowSide: DesignPressure; highSide: DesignPressure; standstill: DesignPressure };
 }
 
@@ -576,6 +578,7 @@ function computeOneCircuit(
     entropyGeneration: { byComponentW_K, totalW_K, clausiusW_K },
     energyBalance: { inW, outW: heatRejectedW, relativeError },
     statePoints: cycle.statePoints,
+    chartPath: cycle.chartPath,
     designPressures: { lowSide, highSide, standstill },
   };
 }

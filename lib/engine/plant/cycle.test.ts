@@ -90,6 +90,11 @@ describe("two-stage ammonia with an open flash intercooler", () => {
     const lhs = mL * h("2") + mH * h("6");
     const rhs = mH * h("3") + mL * h("7");
     expect(Math.abs(lhs - rhs) / rhs).toBeLessThan(1e-9);
+    // Drawing order on the p–h chart: heat exchange at constant pressure, valves at constant h.
+    const pt = (id: string) => r.statePoints.find((p) => p.id === id)!;
+    expect(r.chartPath).toEqual(["1", "2", "3", "4", "5", "6", "7", "8", "1"]);
+    for (const [a, b] of [["2", "3"], ["4", "5"], ["6", "7"], ["8", "1"]]) expect(pt(a).pPa).toBeCloseTo(pt(b).pPa, 6);
+    for (const [a, b] of [["5", "6"], ["7", "8"]]) expect(pt(a).hJkg).toBeCloseTo(pt(b).hJkg, 6);
     // Geometric-mean intermediate pressure (common practice).
     expect(r.intermediatePa! / Math.sqrt(r.evaporatingPa * r.condensingPa)).toBeCloseTo(1, 9);
   });

@@ -75,6 +75,11 @@ export type EntropyComponent =
 export interface CycleResult {
   arrangement: "single-stage" | "two-stage" | "transcritical" | "subcritical-r744";
   statePoints: StatePoint[];
+  /**
+   * State-point ids in drawing order for the p–h chart: joined in this order the points trace
+   * the cycle (isobars horizontal, valves vertical, compressions as chords).
+   */
+  chartPath: string[];
   stages: StageResult[];
   evaporatingPa: number;
   condensingPa: number;
@@ -246,6 +251,7 @@ function cycleAtPressures(
       point("3", highLabel, s3),
       point("4", "evaporator inlet", s4),
     ],
+    chartPath: ["1", "2", "3", "4", "1"],
     stages: [st],
     evaporatingPa: pE,
     condensingPa: pHigh,
@@ -327,6 +333,7 @@ export function twoStageCycle(spec: CycleSpec): CycleResult {
       point("7", "intercooler liquid outlet", s7),
       point("8", "evaporator inlet", s8),
     ],
+    chartPath: ["1", "2", "3", "4", "5", "6", "7", "8", "1"],
     stages: [low, high],
     evaporatingPa: pE,
     condensingPa: pC,
