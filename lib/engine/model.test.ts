@@ -146,6 +146,23 @@ describe("computeFacility: ledger and plant together", () => {
   });
 });
 
+describe("cascade input errors", () => {
+  it("names the cascade condensing temperature when it is not above the low stage's suction", () => {
+    const p = structuredClone(plantFixture);
+    p.circuits[0] = {
+      id: "lt",
+      tag: "C-1",
+      refrigerant: "R744",
+      compressor: { type: "reciprocating" },
+      // −45 °C condensing against a −43 °C suction (blast freezer −35 °C, TD 7 K, 1 K allowance).
+      heatRejection: { to: "circuit", circuitId: "mt", condensingC: -45, approachK: 5 },
+    };
+    const e = thrown(() => computeFacility(model(p)));
+    expect(e.code).toBe("INPUT_OUT_OF_RANGE");
+    expect(e.field).toBe("plant.circuits.0.heatRejection.condensingC");
+  });
+});
+
 describe("cascade and transcritical CO2", () => {
   it("runs a CO2 low stage into the ammonia high stage through a cascade exchanger", () => {
     const p = structuredClone(plantFixture);

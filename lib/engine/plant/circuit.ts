@@ -146,7 +146,10 @@ interface Sink {
   condensingC: number;
   sinkC: number;
   sinkKind: CircuitResult["sinkKind"];
+  /** The input to blame for second-law trouble at the sink (the approach, or a set temperature). */
   field: string;
+  /** The input that sets the condensing temperature (for range and lift errors); default `field`. */
+  condensingField?: string;
   highSideDesignC: number;
 }
 
@@ -367,14 +370,16 @@ function computeOneCircuit(
       sinkC: hr.condensingC - hr.approachK,
       sinkKind: "cascade",
       field: `${path}.heatRejection.approachK`,
+      condensingField: `${path}.heatRejection.condensingC`,
       highSideDesignC: hr.condensingC + 10,
     };
   }
+  const condensingField = sink.condensingField ?? sink.field;
   if (!transcritical && sink.condensingC + K0 >= fluid.meta.criticalTempK - 1)
     throw new PlantError(
       "INPUT_OUT_OF_RANGE",
       `condensing temperature ${sink.condensingC.toFixed(1)} °C is at or above the critical temperature of ${c.refrigerant}; use a transcritical R744 circuit or another refrigerant`,
-      sink.field,
+      condensingField,
       { max: fluid.meta.criticalTempK - K0 - 1, unit: "°C" },
     );
 
@@ -412,12 +417,12 @@ function computeOneCircuit(
     cycle = c.arrangement === "two-stage" ? twoStageCycle(spec) : transcritical ? transcriticalCycle(spec) : singleStageCycle(spec);
   } catch (err) {
     if (err instanceof PlantError) {
-      const field = err.field === "intermediateC" || err.field === "arrangement" ? `${path}.${err.field}` : err.field.startsWith("plant.") ? err.field : sink.field;
+      const field = err.field === "intermediateC" || err.field === "arrangement" ? `${path}.${err.field}` : err.field.startsWith("plant.") ? err.field : condensingField;
       throw new PlantError(err.code, `${c.tag}: ${err.message}`, field, err.allowed);
     }
     // Suction was checked above, so a property-range error here comes from the high side.
     if (err instanceof ThermoRangeError)
-      throw new PlantError("INPUT_OUT_OF_RANGE", `${c.tag}: ${err.message}`, sink.field, err.allowed);
+      throw new PlantError("INPUT_OUT_OF_RANGE", `${c.tag}: ${err.message}`, condensingField, err.allowed);
     throw err;
   }
 
