@@ -49,6 +49,9 @@ describe("document ↔ links", () => {
     expect(pos["condenser:cd1"].y).toBeGreaterThan(pos["circuit:lt"].y);
     const keys = new Set(Object.values(pos).map((p) => `${p.x}|${p.y}`));
     expect(keys.size).toBe(Object.keys(pos).length);
+    // Doors share a row and never overlap (a node is about 200 px wide).
+    const doorXs = demo.doors.map((d) => pos[`door:${d.id}`].x).sort((a, b) => a - b);
+    for (let i = 1; i < doorXs.length; i++) expect(doorXs[i] - doorXs[i - 1]).toBeGreaterThanOrEqual(200);
     expect(autoLayout(demo, { "room:blast": { x: 5, y: 7 } })["room:blast"]).toEqual({ x: 5, y: 7 });
   });
 });

@@ -387,7 +387,8 @@ export function entityOf(doc: CanvasDoc, nid: string): RoomDoc | DoorDoc | Evapo
 /** Replaces the entity behind a node (same id) with `next`. */
 export function replaceEntity(doc: CanvasDoc, nid: string, next: object): CanvasDoc {
   const { kind, id } = parseNodeId(nid);
-  const swap = <T extends { id: string }>(list: T[]) => list.map((x) => (x.id === id ? ({ ...next, id } as T) : x));
+  const same = (next as { id?: unknown }).id === id;
+  const swap = <T extends { id: string }>(list: T[]) => list.map((x) => (x.id === id ? ((same ? next : { ...next, id }) as T) : x));
   if (kind === "room") return { ...doc, rooms: swap(doc.rooms) };
   if (kind === "door") return { ...doc, doors: swap(doc.doors) };
   if (kind === "evaporator") return { ...doc, plant: { ...doc.plant, evaporators: swap(evaporators(doc)) } };
@@ -553,6 +554,7 @@ export function nodeForPath(doc: CanvasDoc, path: ReadonlyArray<PropertyKey>): {
 
 const ROW_Y: Record<NodeKind, number> = { door: 0, outdoors: 0, room: 200, evaporator: 420, circuit: 620, condenser: 840 };
 const COL_W = 240;
+const DOOR_W = 210;
 
 /**
  * Positions for nodes that have none: rooms in a row, doors above the rooms they join,
@@ -577,11 +579,20 @@ export function autoLayout(doc: CanvasDoc, saved: Record<string, { x: number; y:
   });
   place(OUTDOORS, -COL_W * 1.25, ROW_Y.room);
   roomX.set(OUTDOORS, out[OUTDOORS].x);
-  doc.doors.forEach((d) => {
-    const xs = d.sides.map((s) => roomX.get(s)).filter((x): x is number => x !== undefined);
-    const x = xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : 0;
-    place(nodeId("door", d.id), x, ROW_Y.door);
-  });
+  // Doors sit above the spaces they join, swept left to right so that none overlap.
+  const wanted = doc.doors
+    .filter((d) => !out[nodeId("door", d.id)])
+    .map((d) => {
+      const xs = d.sides.map((s) => roomX.get(s)).filter((x): x is number => x !== undefined);
+      return { nid: nodeId("door", d.id), x: xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : 0 };
+    })
+    .sort((a, b) => a.x - b.x);
+  let lastX = -Infinity;
+  for (const w of wanted) {
+    const x = Math.max(w.x, lastX + DOOR_W);
+    place(w.nid, x, ROW_Y.door);
+    lastX = out[w.nid].x;
+  }
   const evX = new Map<string, number[]>();
   evaporators(doc).forEach((e) => {
     const nid = nodeId("evaporator", e.id);
