@@ -3,5 +3,8 @@
  * works (UI.md: show a view only once it works).
  */
 export const FACILITY_TABS: { slug: string; label: string }[] = [
+  { slug: "layout", label: "Layout" },
+  { slug: "stocking", label: "Stocking checks" },
+  { slug: "schedule", label: "Equipment schedule" },
   { slug: "settings", label: "Site & settings" },
 ];
