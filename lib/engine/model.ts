@@ -40,6 +40,7 @@ import {
   type FixedPointResult,
 } from "./plant/evaporator";
 import { assemblePlant, computePlant, fluidsNeeded, type PlantResult } from "./plant/plant";
+import { designCapacityWithFeedback, NO_FEEDBACK, withFeedback } from "./plant/ledger-feedback";
 import { plantInputSchema, type EvaporatorInput, type PlantInput } from "./plant/schema";
 
 export { buildSchedule } from "./plant/schedule";
@@ -131,14 +132,11 @@ interface RoomSolution {
  */
 function solveRoom(room: RoomInput, index: number, evs: EvaporatorInput[], lctx: LedgerContext, plant: PlantInput): RoomSolution {
   if (evs.length === 0) return { result: computeRoomLoad(room, lctx), sized: [] };
-  let last: { x: number; result: RoomLoadResult; sized: EvaporatorSizing[] } | undefined;
-  const f = (x: number) => {
-    const sized = sizeRoomEvaporators(room, evs, x);
-    const result = computeRoomLoad({ ...room, ...roomFeedback(sized) }, lctx);
-    last = { x, result, sized };
-    // A room whose ledger nets out below zero (credited colder sides) needs no cooling duty.
-    return Math.max(0, result.designCapacityW);
-  };
+  // One ledger call per room: the room without fans and defrost; the plant's lines are added
+  // the way the ledger adds them (ledger-feedback.ts, checked against the ledger in its tests).
+  const base = computeRoomLoad({ ...room, ...NO_FEEDBACK }, lctx);
+  // A room whose ledger nets out below zero (credited colder sides) needs no cooling duty.
+  const f = (x: number) => Math.max(0, designCapacityWithFeedback(base, roomFeedback(sizeRoomEvaporators(room, evs, x))));
   const whPerW = feedbackWhPerDayPerW(room, evs);
   const fp = solveDutyFixedPoint(f, {
     tolerance: plant.options.fixedPointTolerance,
@@ -146,18 +144,15 @@ function solveRoom(room: RoomInput, index: number, evs: EvaporatorInput[], lctx:
     field: `rooms.${index}`,
     // The ledger turns daily energy into capacity by (1 + SF)/run hours, or — when the peak
     // hour governs — spreads fans and defrost evenly, (1 + SF)/24 per hour. The prediction
-    // only saves calls: convergence is still checked against the ledger itself.
+    // only saves steps: convergence is still checked on the map itself.
     predict: (f0) => {
-      const r = last!.result;
-      const perWh = (1 + r.safetyFactor) / (r.requiredCapacityW >= r.requiredPeakCapacityW ? r.runHoursPerDay : 24);
+      const perWh = (1 + base.safetyFactor) / (base.requiredCapacityW >= base.requiredPeakCapacityW ? base.runHoursPerDay : 24);
       const slope = perWh * whPerW;
       return slope < 1 ? f0 / (1 - slope) : undefined;
     },
   });
-  if (!last || last.x !== fp.valueW) f(fp.valueW);
-  // The evaporators are sized for the converged duty; the ledger is the one at that duty.
   const sized = sizeRoomEvaporators(room, evs, fp.valueW);
-  return { result: last!.result, sized, fixedPoint: { roomId: room.id, ...fp } };
+  return { result: withFeedback(base, roomFeedback(sized)), sized, fixedPoint: { roomId: room.id, ...fp } };
 }
 
 function aggregate(lctx: LedgerContext, results: RoomLoadResult[]): LedgerResult {
