@@ -131,7 +131,9 @@ export function rerateInstalled(model: FacilityModel, conditions: RerateConditio
       const idx = model.plant.condensers.findIndex((x) => x.id === hr.condenserId);
       condensingC = condenserSink(model.plant.condensers[idx], idx, ambient, c.arrangement === "transcritical").condensingC;
     }
-    const superheatK = c.superheatK ?? (model.plant.evaporators.some((e) => e.circuitId === c.id && e.feed.type === "dx") ? 6 : 0);
+    // As the design: the circuit's superheat, else the largest DX superheat on it (0 if all pumped).
+    const dx = model.plant.evaporators.flatMap((e) => (e.circuitId === c.id && e.feed.type === "dx" ? [e.feed.superheatK] : []));
+    const superheatK = c.superheatK ?? (dx.length ? Math.max(...dx) : 0);
     const now = perWatt(fluid, c, c.compressor.type, suctionC, condensingC, superheatK, c.subcoolingK);
 
     let compressorCapacityW = 0;
