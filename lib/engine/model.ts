@@ -25,7 +25,6 @@ import {
   computeCircuit,
   evaporatorWarnings,
   preparePlant,
-  type Ambient,
   type CircuitResult,
   type PlantWarning,
 } from "./plant/circuit";
