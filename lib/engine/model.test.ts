@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { loadFluid } from "./thermo";
-import { LoadInputError } from "./loads";
+import { computeLedger, LoadInputError } from "./loads";
 import {
   buildSchedule,
   computeFacility,
@@ -75,6 +75,19 @@ describe("facility model schema", () => {
     const msgs = r.error!.issues.map((i) => `${i.path.join(".")}: ${i.message}`);
     expect(msgs.some((m) => m.startsWith("plant.circuits.0.heatRejection.circuitId: cascade loop"))).toBe(true);
     expect(msgs).toContain("plant.circuits.1.arrangement: transcritical is allowed for R744 only");
+  });
+});
+
+describe("computeFacility without a plant", () => {
+  it("gives the ledger's own result and an empty plant", () => {
+    const { $comment, ...rest } = ledger;
+    void $comment;
+    const m = facilityModelSchema.parse({ schemaVersion: 1, ...rest });
+    const res = computeFacility(m);
+    expect(res.ledger.rooms).toEqual(computeLedger(rest).rooms);
+    expect(res.ledger.totals).toEqual(computeLedger(rest).totals);
+    expect(res.plant.circuits).toEqual([]);
+    expect(res.plant.warnings).toEqual([]);
   });
 });
 
