@@ -470,6 +470,15 @@ function computeOneCircuit(
       message: `pressure ratio ${cycle.pressureRatio.toFixed(1)} is above about ${ratioLimit} for a single ${c.compressor.type} stage: consider two-stage compression or a cascade`,
       ref,
     });
+  if (c.arrangement === "two-stage")
+    for (const st of cycle.stages)
+      if (st.pressureRatio > ratioLimit)
+        warnings.push({
+          code: "PRESSURE_RATIO_HIGH",
+          severity: "warning",
+          message: `${st.name}-stage pressure ratio ${st.pressureRatio.toFixed(1)} is above about ${ratioLimit} even with two stages: consider a cascade`,
+          ref,
+        });
   const dischargeLimit = DISCHARGE_LIMIT_C[c.compressor.type];
   if (cycle.dischargeTempK - K0 > dischargeLimit)
     warnings.push({
