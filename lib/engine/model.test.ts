@@ -190,6 +190,8 @@ describe("cascade and transcritical CO2", () => {
     const lt = res.plant.circuits.find((c) => c.id === "lt")!;
     const mt = res.plant.circuits.find((c) => c.id === "mt")!;
     expect(lt.sinkKind).toBe("cascade");
+    // The high stage evaporates at −5 °C condensing − 5 K approach = −10 °C, and its suction
+    // is that less its 1 K suction-line allowance (hand arithmetic on the inputs).
     expect(lt.sinkC).toBe(-10);
     expect(mt.cascadeFromCircuitIds).toEqual(["lt"]);
     // The high stage takes the low stage's whole rejected heat as load.

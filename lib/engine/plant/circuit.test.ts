@@ -38,6 +38,7 @@ describe("circuit temperatures", () => {
     expect(c.suctionC).toBe(-33);
     expect(c.condensingC).toBe(44);
     expect(c.sinkKind).toBe("dry-bulb");
+    // Suction superheat follows the DX feed's default of 6 K (common practice 4–8 K).
     expect(c.superheatK).toBe(6);
   });
 
