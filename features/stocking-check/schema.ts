@@ -37,4 +37,18 @@ export interface ScenarioDto {
   appliedRevision: number | null;
 }
 
+/** A room as the check form shows it now (SI). */
+export interface RoomOption {
+  id: string;
+  name: string;
+  setPointC: number;
+  product: { commodityId: string; tonnesPerDay: number; enteringTempC: number; finalTempC: number | null; pullDownHours: number } | null;
+  stored: { commodityId: string; massKg: number } | null;
+}
+export interface CommodityOption {
+  id: string;
+  name: string;
+  group: string;
+}
+
 export type CreateScenarioInput = z.input<typeof createScenarioSchema>;
