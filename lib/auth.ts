@@ -10,6 +10,7 @@ import { env } from "./env";
 import { consumeEmailToken } from "./email-tokens";
 import { clientKeyOf, recordSignInAttempt, signInAllowed } from "./rate-limit";
 import { audit } from "./audit";
+import { log } from "./log";
 
 export const SESSION_DAYS = 7;
 
@@ -43,6 +44,18 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
   trustHost: true,
   session: { strategy: "jwt", maxAge: SESSION_DAYS * 86_400 },
   pages: { signIn: "/signin" },
+  // Auth.js logs through our structured logger; a refused sign-in is expected (and audited), not an error.
+  logger: {
+    error(error) {
+      const kind = (error as Error & { type?: string }).type ?? error.name;
+      if (kind === "CredentialsSignin") return;
+      log("error", "auth error", { kind, error: error.message });
+    },
+    warn(code) {
+      log("warn", "auth warning", { code });
+    },
+    debug() {},
+  },
   providers: [
     Credentials({
       id: "password",

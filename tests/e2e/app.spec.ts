@@ -29,6 +29,7 @@ test.describe("designer", () => {
     await shot(page, "designer-facilities");
     await page.getByRole("link", { name }).click();
     await expect(page.getByRole("heading", { name })).toBeVisible();
+    await page.getByRole("link", { name: "Site & settings" }).click();
     await expect(page.getByLabel("Design dry bulb")).toHaveValue("31");
     await shot(page, "designer-site-settings");
   });
@@ -197,7 +198,8 @@ test("units and theme are a per-user preference: IP shows °F and ft, dark theme
   await page.getByLabel(/IP — °F/).check();
   await page.getByLabel("dark").check();
   await page.getByRole("button", { name: "Save" }).click();
-  await page.waitForLoadState("load");
+  // the page reloads with the new preference: the header's unit badge says IP
+  await expect(page.getByRole("button", { name: /Imperial Ivy/ })).toContainText("IP");
   await page.goto(`/w/${WS}`);
   const row = page.getByRole("row", { name: /Harrowfield Cold Store — main building/ });
   // 32 °C = 89.6 °F, 150 m = 492.13 ft (NIST SP 811: °F = 1.8·°C + 32; 1 ft = 0.3048 m)
