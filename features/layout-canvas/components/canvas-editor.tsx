@@ -247,11 +247,10 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
       const pt = screen ?? (rect ? { x: rect.left + rect.width / 2 - 90, y: rect.top + rect.height / 2 - 40 } : { x: 0, y: 0 });
       const pos = rf.screenToFlowPosition(pt);
       const { doc: next, nid } = addNode(docRef.current, kind);
-      const taken = new Set(Object.values(known.current).map((p) => `${Math.round(p.x / 20)}|${Math.round(p.y / 20)}`));
-      while (taken.has(`${Math.round(pos.x / 20)}|${Math.round(pos.y / 20)}`)) {
-        pos.x += 30;
-        pos.y += 30;
-      }
+      // Nodes are about 200 × 110 px: step right until the new one overlaps none.
+      const others = Object.values(known.current);
+      const hits = () => others.some((p) => Math.abs(p.x - pos.x) < 210 && Math.abs(p.y - pos.y) < 120);
+      for (let i = 0; i < 200 && hits(); i++) pos.x += 60;
       known.current[nid] = { x: Math.round(pos.x / 20) * 20, y: Math.round(pos.y / 20) * 20 };
       toSelect.current = new Set([nid]);
       setInspected(nid);
@@ -489,7 +488,7 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
           ) : null}
           {toast ? (
             <div role={toast.kind === "info" ? "status" : "alert"} className={`absolute left-1/2 top-3 z-10 max-w-lg -translate-x-1/2 rounded border px-3 py-2 text-sm shadow ${toast.kind === "info" ? "border-line bg-surface" : "border-danger/60 bg-surface text-danger"}`}>
-              {toast.kind === "refused" ? "⛔ Connection refused: " : toast.kind === "error" ? "⚠ " : ""}
+              {toast.kind === "refused" ? "✕ Connection refused: " : toast.kind === "error" ? "⚠ " : ""}
               {toast.text}
             </div>
           ) : null}
