@@ -5,6 +5,7 @@
 export const FACILITY_TABS: { slug: string; label: string }[] = [
   { slug: "layout", label: "Layout" },
   { slug: "ledger", label: "Heat ledger" },
+  { slug: "circuits", label: "Circuits" },
   { slug: "stocking", label: "Stocking checks" },
   { slug: "schedule", label: "Equipment schedule" },
   { slug: "settings", label: "Site & settings" },
