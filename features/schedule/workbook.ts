@@ -112,7 +112,7 @@ function loadRows(input: WorkbookInput): LoadRow[] {
     for (const c of r.components)
       out.push({ room: r.roomName, setPointC: sp, line: "component", kind: c.kind, label: c.label, powerW: c.powerW, energyKWh: c.energyKWhPerDay, sensibleW: c.sensibleW, latentW: c.latentW, method: c.trace.method, source: c.trace.source });
     const sf = `${(r.safetyFactor * 100).toFixed(0)} %`;
-    const base = { room: r.roomName, setPointC: sp, line: "total" as const, method: "Design capacity from the 24-h energy, safety factor and allowed run time", source: "DOMAIN.md §1 (ASHRAE Refrigeration Handbook, refrigerated-facility loads)" };
+    const base = { room: r.roomName, setPointC: sp, line: "total" as const, method: "Design capacity from the 24-h energy, safety factor and allowed run time", source: "ASHRAE Handbook—Refrigeration, refrigerated-facility loads chapter; safety factor about 10 % and 18–20 h run time are common practice" };
     out.push(
       { ...base, kind: "total", label: "24-h average load", powerW: r.averageLoadW, energyKWh: r.totalEnergyKWhPerDay, sensibleW: r.sensibleW, latentW: r.latentW },
       { ...base, kind: "required-daily", label: `Required capacity: 24-h energy × (1 + ${sf}) / ${r.runHoursPerDay} h`, powerW: r.requiredCapacityW, energyKWh: null, sensibleW: null, latentW: null },
@@ -192,10 +192,10 @@ export function methodsAndSources(result: FacilityResult): { method: string; sou
   const seen = new Map<string, { method: string; source: string }>();
   for (const r of result.ledger.rooms) for (const c of r.components) seen.set(`${c.trace.method}|${c.trace.source}`, { method: c.trace.method, source: c.trace.source });
   const plant = [
-    { method: "Evaporator duty Q = UA·TD; design TD by humidity class", source: "DOMAIN.md §2 (common practice)" },
-    { method: "Vapour-compression cycle: ṁ = Q/(h1 − h4), h2 = h1 + (h2s − h1)/η_is, W = ṁ(h2 − h1), COP = Q/W", source: "DOMAIN.md §2 (standard cycle analysis)" },
-    { method: "Carnot COP = T_L/(T_H − T_L); second-law efficiency = COP/COP_Carnot; entropy generation by the Clausius inequality", source: "DOMAIN.md §2" },
-    { method: "Refrigerant properties: Rimeplan's own property module, IIR reference state (h = 200 kJ/kg, s = 1 kJ/(kg·K), saturated liquid at 0 °C)", source: "lib/engine/thermo/README.md" },
+    { method: "Evaporator duty Q = UA·TD; design TD by humidity class", source: "ASHRAE Handbook—Refrigeration (air coolers); TD of 4–8 K by room humidity is common practice" },
+    { method: "Vapour-compression cycle: ṁ = Q/(h1 − h4), h2 = h1 + (h2s − h1)/η_is, W = ṁ(h2 − h1), COP = Q/W", source: "Standard vapour-compression cycle analysis (ASHRAE Handbook—Fundamentals, thermodynamics and refrigeration cycles)" },
+    { method: "Carnot COP = T_L/(T_H − T_L); second-law efficiency = COP/COP_Carnot; entropy generation by the Clausius inequality", source: "Second-law analysis (ASHRAE Handbook—Fundamentals, thermodynamics chapter)" },
+    { method: "Refrigerant properties: Rimeplan's own property module, IIR reference state (h = 200 kJ/kg, s = 1 kJ/(kg·K), saturated liquid at 0 °C)", source: "Rimeplan thermo module: models, reference state and measured accuracy in its design note (lib/engine/thermo/README.md)" },
     { method: "Fan and defrost heat fed back into each room's load (fixed point)", source: `tolerance ${result.fixedPoint.tolerance} relative, at most ${result.fixedPoint.maxIterations} iterations` },
   ];
   return [...seen.values(), ...plant];

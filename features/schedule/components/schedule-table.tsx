@@ -144,6 +144,10 @@ export function ScheduleTable({ ws, facilityId, unitSystem, initial, canExport }
             {data.removed.length ? ` · removed since: ${data.removed.join(", ")}` : ""}
           </p>
         </div>
+        <div className="flex flex-wrap items-center gap-2">
+          <a href={`/w/${ws}/f/${facilityId}/report`} className="text-sm text-accent hover:underline">
+            Printable calculation report
+          </a>
         {canExport ? (
           <div className="flex gap-2">
             <Button variant="primary" onClick={() => exportAs("xlsx")} disabled={exporting !== null}>
@@ -154,6 +158,7 @@ export function ScheduleTable({ ws, facilityId, unitSystem, initial, canExport }
             </Button>
           </div>
         ) : null}
+        </div>
       </header>
       {msg ? (
         <p role={msg.ok ? "status" : "alert"} className={`text-sm ${msg.ok ? "text-ok" : "text-danger"}`}>

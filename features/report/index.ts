@@ -1,0 +1,2 @@
+export { reportQuery } from "./schema";
+export type { ReportData } from "./queries";
