@@ -9,4 +9,5 @@ export const FACILITY_TABS: { slug: string; label: string }[] = [
   { slug: "stocking", label: "Stocking checks" },
   { slug: "schedule", label: "Equipment schedule" },
   { slug: "settings", label: "Site & settings" },
+  { slug: "revisions", label: "Revisions" },
 ];

@@ -1,0 +1,2 @@
+export { RevisionsPanel } from "./components/revisions-panel";
+export type { RevisionRow } from "./schema";
