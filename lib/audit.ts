@@ -19,7 +19,8 @@ export type AuditAction =
   | "model.edited"
   | "revision.issued"
   | "scenario.applied"
-  | "export.created";
+  | "export.created"
+  | "import.committed";
 
 /** Appends one audit record (the table refuses updates and deletes). */
 export async function audit(entry: {

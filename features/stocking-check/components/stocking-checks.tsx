@@ -101,6 +101,11 @@ export function StockingChecks(p: Props) {
             ))}
           </ul>
         )}
+        {p.canCreate ? (
+          <a href={`/w/${p.ws}/f/${p.facilityId}/import`} className="text-xs text-accent hover:underline">
+            Import a stocking plan or room list from a spreadsheet
+          </a>
+        ) : null}
         {compare.length >= 2 ? <p className="text-xs text-muted">Comparing {compare.length} checks side by side.</p> : scenarios.length >= 2 ? <p className="text-xs text-muted">Tick two or more to compare them.</p> : null}
       </aside>
 

@@ -1,0 +1,95 @@
+import "server-only";
+import { AppError } from "@/lib/errors";
+import { audit } from "@/lib/audit";
+import { listCommodities } from "@/lib/engine/loads";
+import { loadFacilityModel, saveFacilityModel } from "@/features/facilities/model";
+import type { ModelDoc } from "@/features/facilities/engine-model";
+import { createScenario } from "@/features/stocking-check/queries";
+import { MAX_UPLOAD_BYTES, readTable, type Table } from "./read-table";
+import { ImportFileError } from "./zip-guard";
+import { planRooms, planStocking, roomDoc } from "./plans";
+import { importModeSchema, importNameSchema, type ImportResultDto } from "./schema";
+
+export interface Upload {
+  buf: Buffer;
+  fileName: string;
+  mode: "preview" | "commit";
+  name: string | null;
+}
+
+/** Reads the multipart upload with its size limit checked before the body is read. */
+export async function readUpload(req: Request): Promise<Upload> {
+  const len = Number(req.headers.get("content-length") ?? Number.NaN);
+  if (!Number.isFinite(len)) throw new AppError("validation", "The upload must state its size (Content-Length).", "file");
+  if (len > MAX_UPLOAD_BYTES + 64 * 1024) throw new AppError("validation", `The file is too large: at most ${MAX_UPLOAD_BYTES / 1048576} MB is accepted.`, "file");
+  let form: FormData;
+  try {
+    form = await req.formData();
+  } catch {
+    throw new AppError("validation", "Send the file as multipart/form-data with a field named file.", "file");
+  }
+  const file = form.get("file");
+  if (!(file instanceof File)) throw new AppError("validation", "Choose a file to import (.xlsx or .csv).", "file");
+  const mode = importModeSchema.safeParse(form.get("mode") ?? "preview");
+  if (!mode.success) throw new AppError("validation", mode.error.issues[0].message, "mode");
+  const rawName = form.get("name");
+  return { buf: Buffer.from(await file.arrayBuffer()), fileName: file.name || "upload", mode: mode.data, name: typeof rawName === "string" ? rawName : null };
+}
+
+async function table(u: Upload): Promise<Table> {
+  try {
+    return await readTable(u.buf, u.fileName);
+  } catch (e) {
+    if (e instanceof ImportFileError) throw new AppError("validation", e.message, "file");
+    throw e;
+  }
+}
+
+function refuseIfErrors(errors: ImportResultDto["errors"]) {
+  if (errors.length === 0) return;
+  throw new AppError(
+    "validation",
+    `${errors.length} problem${errors.length === 1 ? "" : "s"} in the file; nothing was imported. Correct them and upload again.`,
+    "file",
+    errors.slice(0, 100).map((e) => ({ field: `row ${e.row} · ${e.column}`, message: e.message })),
+  );
+}
+
+type Actor = { id: string; email: string };
+
+/** Room list: preview, or (all rows valid) add and update rooms as one new model version. */
+export async function importRooms(workspaceId: string, facilityId: string, user: Actor, u: Upload): Promise<ImportResultDto> {
+  const t = await table(u);
+  const m = await loadFacilityModel(workspaceId, facilityId);
+  const existing = (m.doc.rooms as { id: string; name: string }[]).map((r) => ({ id: r.id, name: r.name }));
+  const plan = planRooms(t, existing);
+  const out: ImportResultDto = { kind: "rooms", fileName: u.fileName, format: t.format, rows: plan.rows, errors: plan.errors, notes: plan.notes, itemCount: plan.items.length, committed: null };
+  if (u.mode === "preview") return out;
+  refuseIfErrors(plan.errors);
+  const rooms = [...(m.doc.rooms as Record<string, unknown>[])];
+  for (const r of plan.items) {
+    if (r.existing) {
+      const i = rooms.findIndex((x) => x.id === r.id);
+      rooms[i] = { ...rooms[i], name: r.name, kind: r.kind, lengthM: r.lengthM, widthM: r.widthM, heightM: r.heightM, setPointC: r.setPointC, rhPct: r.rhPct };
+    } else rooms.push(roomDoc(r));
+  }
+  const saved = await saveFacilityModel({ workspaceId, facilityId, userId: user.id, baseVersion: m.version, doc: { ...m.doc, rooms } as ModelDoc, summary: `Imported ${plan.items.length} rooms from ${u.fileName}`.slice(0, 200) });
+  await audit({ workspaceId, actorId: user.id, actorEmail: user.email, action: "import.committed", targetType: "facility", targetId: facilityId, detail: { kind: "rooms", file: u.fileName, rows: plan.items.length, version: saved.version } });
+  return { ...out, committed: { version: saved.version } };
+}
+
+/** Stocking plan: preview, or (all rows valid) save it as one stocking check. */
+export async function importStocking(workspaceId: string, facilityId: string, user: Actor, u: Upload): Promise<ImportResultDto> {
+  const t = await table(u);
+  const m = await loadFacilityModel(workspaceId, facilityId);
+  const rooms = (m.doc.rooms as { id: string; name: string }[]).map((r) => ({ id: r.id, name: r.name }));
+  const plan = planStocking(t, rooms, listCommodities().map((c) => ({ id: c.id, name: c.name })));
+  const out: ImportResultDto = { kind: "stocking", fileName: u.fileName, format: t.format, rows: plan.rows, errors: plan.errors, notes: plan.notes, itemCount: plan.items.length, committed: null };
+  if (u.mode === "preview") return out;
+  refuseIfErrors(plan.errors);
+  const name = importNameSchema.safeParse(u.name ?? `Stocking plan from ${u.fileName}`.slice(0, 120));
+  if (!name.success) throw new AppError("validation", name.error.issues[0].message, "name");
+  const s = await createScenario(workspaceId, facilityId, user.id, { name: name.data, changes: { rooms: plan.items, safetyFactorPlacement: "load" } });
+  await audit({ workspaceId, actorId: user.id, actorEmail: user.email, action: "import.committed", targetType: "scenario", targetId: s.id, detail: { kind: "stocking", file: u.fileName, rows: plan.items.length } });
+  return { ...out, committed: { scenarioId: s.id } };
+}
