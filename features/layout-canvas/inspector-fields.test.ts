@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { roomSchema } from "@/lib/engine/loads/schema";
 import { newRoom } from "./graph";
-import { formKey, fromForm, FormFieldError, issueKey, toForm } from "./inspector-fields";
+import { circuitSchema } from "@/lib/engine/plant/schema";
+import { formKey, fromForm, FormFieldError, isLinkIssue, issueKey, toForm } from "./inspector-fields";
 
 const room = newRoom({ schemaVersion: 1, rooms: [], doors: [], plant: {} }, (p) => `${p}-x`);
 
@@ -37,5 +38,14 @@ describe("inspector form values", () => {
     expect(issueKey("room", r.error!.issues[0].path)).toBe("setPointC");
     expect(issueKey("circuit", ["compressor", "units"])).toBe(formKey("compressor.units"));
     expect(issueKey("room", ["surfaces", 0, "layers"])).toBeNull();
+  });
+});
+
+describe("links while an item is unconnected", () => {
+  it("treats the missing references as link problems, not as the form's", () => {
+    const r = circuitSchema.safeParse({ id: "c", tag: "C-1", refrigerant: "R290", heatRejection: { to: "condenser", condenserId: "" } });
+    expect(r.success).toBe(false);
+    expect(r.error!.issues.every((i) => isLinkIssue("circuit", i.path))).toBe(true);
+    expect(isLinkIssue("circuit", ["compressor", "units"])).toBe(false);
   });
 });

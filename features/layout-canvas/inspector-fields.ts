@@ -54,7 +54,7 @@ export const FIELDS: Record<Exclude<NodeKind, "outdoors">, FieldDef[]> = {
     { name: "tag", label: "Tag", type: "text" },
     { name: "tdK", label: "Design TD", type: "number", unit: "tempDiff", optional: true, hint: "default by room humidity" },
     { name: "units", label: "Unit coolers", type: "number", optional: true, hint: "default from duty and room length" },
-    { name: "feed.type", label: "Feed", type: "select", options: ["dx", "pumped"] },
+    { name: "feed.type", label: "Feed", type: "select", options: ["dx", "pumped"], optional: true, hint: "default direct expansion" },
   ],
   circuit: [
     { name: "tag", label: "Tag", type: "text" },
@@ -162,7 +162,8 @@ export function fromForm(entity: object, kind: Exclude<NodeKind, "outdoors">, va
     const raw = (values[key] ?? "").trim();
     if (raw === (initial[key] ?? "").trim()) continue;
     if (f.name === "feed.type") {
-      e = setPath(e, "feed", { type: raw });
+      // A new feed type starts from that type's defaults (its other fields differ).
+      e = setPath(e, "feed", raw === "" ? undefined : { type: raw });
       continue;
     }
     if (raw === "") {
@@ -176,6 +177,24 @@ export function fromForm(entity: object, kind: Exclude<NodeKind, "outdoors">, va
     } else e = setPath(e, f.name, raw);
   }
   return e;
+}
+
+/**
+ * The references the canvas draws as links (and the Connections selects set). While an item is
+ * still unconnected these fail the entity schema; that is reported on the canvas, and must not
+ * stop the item's other inputs from being edited.
+ */
+export const LINK_FIELDS: Record<Exclude<NodeKind, "outdoors">, string[]> = {
+  room: [],
+  door: ["sides"],
+  evaporator: ["roomId", "circuitId"],
+  circuit: ["heatRejection.condenserId", "heatRejection.circuitId"],
+  condenser: [],
+};
+
+export function isLinkIssue(kind: Exclude<NodeKind, "outdoors">, path: ReadonlyArray<PropertyKey>): boolean {
+  const p = path.map(String).join(".");
+  return LINK_FIELDS[kind].some((f) => p === f || p.startsWith(f + "."));
 }
 
 /** Maps an entity-schema issue path to the form field it belongs to (or null: shown above the form). */

@@ -460,9 +460,9 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
             snapGrid={[20, 20]}
             minZoom={0.1}
             maxZoom={2.5}
-            defaultViewport={layout.viewport ?? undefined}
-            fitView={!layout.viewport}
-            fitViewOptions={{ padding: 0.15 }}
+            defaultViewport={layout.viewport ?? (initial.doc.rooms.length === 0 ? { x: 320, y: 40, zoom: 1 } : undefined)}
+            fitView={!layout.viewport && initial.doc.rooms.length > 0}
+            fitViewOptions={{ padding: 0.15, maxZoom: 1.2 }}
             proOptions={{ hideAttribution: true }}
           >
             {bg ? (
@@ -477,7 +477,7 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
               </ViewportPortal>
             ) : null}
             <Background variant={BackgroundVariant.Dots} gap={20} size={1} />
-            <MiniMap pannable zoomable ariaLabel="Overview of the layout" className="!bg-surface-2" maskColor="color-mix(in oklch, var(--surface-3) 60%, transparent)" />
+            <MiniMap pannable zoomable ariaLabel="Overview of the layout" className="!bg-surface-2" style={{ width: 150, height: 100 }} maskColor="color-mix(in oklch, var(--surface-3) 60%, transparent)" />
             <Controls showInteractive={false} />
           </ReactFlow>
           {doc.rooms.length === 0 && canEdit ? (

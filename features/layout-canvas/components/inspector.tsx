@@ -5,7 +5,7 @@ import { Button } from "@/components/ui/button";
 import type { UnitSystem } from "@/lib/units";
 import { circuits, condensers, entityOf, evaporators, OUTDOORS, parseNodeId } from "../graph";
 import { splitField, type Problem } from "../evaluate";
-import { ENTITY_SCHEMAS, FIELDS, FormFieldError, fromForm, issueKey, toForm, unitLabel, type FieldDef, type FormValues } from "../inspector-fields";
+import { ENTITY_SCHEMAS, FIELDS, FormFieldError, fromForm, isLinkIssue, issueKey, toForm, unitLabel, type FieldDef, type FormValues } from "../inspector-fields";
 import type { CanvasDoc, NodeKind } from "../schema";
 
 type EditKind = Exclude<NodeKind, "outdoors">;
@@ -52,9 +52,10 @@ function EntityForm({ nid, doc, unitSystem: s, canEdit, problems, onChange, onDe
     try {
       const next = fromForm(entityRef.current, kind, values, initial.current, s);
       const r = schema.safeParse(next);
-      if (r.success) return { values, errors: {} };
+      const issues = r.success ? [] : r.error.issues.filter((i) => !isLinkIssue(kind, i.path));
+      if (issues.length === 0) return { values, errors: {} };
       const errors: FieldErrors<FormValues> = {};
-      for (const i of r.error.issues) {
+      for (const i of issues) {
         const key = issueKey(kind, i.path) ?? "root";
         const def = FIELDS[kind].find((f) => f.name.replaceAll(".", "__") === key);
         errors[key] ??= { type: "schema", message: def ? `${def.label} ${i.message}` : `${i.path.join(".")}: ${i.message}` };
@@ -82,7 +83,8 @@ function EntityForm({ nid, doc, unitSystem: s, canEdit, problems, onChange, onDe
       if (!name || !entityRef.current) return;
       try {
         const next = fromForm(entityRef.current, kind, values as FormValues, initial.current, s);
-        if (schema.safeParse(next).success) {
+        const r = schema.safeParse(next);
+        if (r.success || r.error.issues.every((i) => isLinkIssue(kind, i.path))) {
           committed.current = next;
           onChange(next, `${nid}:${name}`);
         }
@@ -218,7 +220,7 @@ function Links({ kind, entity, doc, disabled, onChange, nid }: { kind: EditKind;
     const sides = entity.sides as [string, string];
     const opts = [{ value: OUTDOORS, label: "Outdoors" }, ...rooms];
     body = [0, 1].map((k) =>
-      sel(k === 0 ? "Joins" : "and", sides[k] ?? "", opts, (v) => onChange({ ...entity, sides: k === 0 ? [v, sides[1]] : [sides[0], v] }), `side${k}`),
+      sel(k === 0 ? "Opens from" : "Opens to", sides[k] ?? "", opts, (v) => onChange({ ...entity, sides: k === 0 ? [v, sides[1]] : [sides[0], v] }), `side${k}`),
     );
   } else if (kind === "evaporator") {
     body = [
