@@ -12,6 +12,7 @@ import { acceptScenario, applyScenario, createScenario, listScenarios } from "@/
 import { prepareExport, scheduleDto } from "@/features/schedule/queries";
 import { SHEETS, workbookBuffer } from "@/features/schedule/workbook";
 import { scenarioChangesSchema } from "@/lib/engine/stocking";
+import { importRooms, importStocking } from "@/features/import/queries";
 import { makeUser, makeWorkspace } from "../factories";
 
 const read = (p: string) => JSON.parse(readFileSync(path.resolve(import.meta.dirname, "../..", p), "utf8"));
@@ -97,5 +98,37 @@ describe("schedule exports", () => {
     expect(after.rows.find((r) => r.tag === "EV-1")!.mark).toEqual({ status: "same" });
     const audits = await db.select().from(auditLog).where(and(eq(auditLog.workspaceId, ws.id), eq(auditLog.action, "export.created")));
     expect(audits[0].detail).toMatchObject({ kind: "schedule.xlsx", revision: 2, issued: false });
+  });
+});
+
+describe("imports", () => {
+  const csv = (text: string, mode: "preview" | "commit", name: string | null = null) => ({ buf: Buffer.from(text), fileName: "plan.csv", mode, name });
+
+  it("previews row errors naming the column, refuses the commit and stores nothing; a clean plan becomes one stocking check", async () => {
+    const { ws, u, f } = await setup();
+    const bad = "Room;Intake [t/day];Entering [°C]\nProduce room +2 °C (apples);12,5;warm\nAttic;3;10\n";
+    const preview = await importStocking(ws.id, f.id, u, csv(bad, "preview"));
+    expect(preview.errors).toEqual([
+      { row: 2, column: "Entering [°C]", message: '"warm" is not a number' },
+      { row: 3, column: "Room", message: 'no room "Attic" in this facility' },
+    ]);
+    await expect(importStocking(ws.id, f.id, u, csv(bad, "commit"))).rejects.toMatchObject({ code: "validation", field: "file" });
+    expect(await listScenarios(ws.id, f.id)).toHaveLength(0);
+    const good = "Room;Intake [t/day];Entering [°C]\napples;12,5;18\n";
+    const done = await importStocking(ws.id, f.id, u, csv(good, "commit", "Plan A"));
+    const list = await listScenarios(ws.id, f.id);
+    expect(list.map((s) => [s.id, s.name])).toEqual([[done.committed!.scenarioId, "Plan A"]]);
+    expect(list[0].changes.rooms).toEqual([{ roomId: "apples", tonnesPerDay: 12.5, enteringTempC: 18 }]);
+  });
+
+  it("adds a room list as one new model version, or nothing when a file is refused", async () => {
+    const { ws, u, f } = await setup();
+    await expect(importRooms(ws.id, f.id, u, { buf: Buffer.from("PK\u0003\u0004garbage"), fileName: "rooms.xlsx", mode: "commit", name: null })).rejects.toMatchObject({ code: "validation", field: "file" });
+    expect((await loadFacilityModel(ws.id, f.id)).version).toBe(2);
+    const r = await importRooms(ws.id, f.id, u, csv("Name,Length [m],Width [m],Height [m],Set point [°C],Construction\nNew chiller,20,10,8,4,PIR 120\n", "commit"));
+    expect(r.committed).toEqual({ version: 3 });
+    const m = await loadFacilityModel(ws.id, f.id);
+    expect((m.doc.rooms as { name: string }[]).map((x) => x.name)).toContain("New chiller");
+    m.engineModel(); // the imported room is a valid model room
   });
 });
