@@ -153,6 +153,9 @@ describe("room list import", () => {
   it("updates rooms that exist by name and keeps their ids", () => {
     const p = planRooms(table(["Name", "Length", "Width", "Height", "Set point"], [["Dock", 20, 10, 8, 4]]), [{ id: "dock", name: "dock" }]);
     expect(p.items[0]).toMatchObject({ id: "dock", existing: true, setPointC: 4 });
+    // No RH or kind column: the existing room keeps its own.
+    expect(p.items[0].rhPct).toBeUndefined();
+    expect(p.items[0].kind).toBeUndefined();
     expect(parseConstruction("U 0,25")).toEqual({ material: "given U-value", uValueWm2K: 0.25 });
   });
 });

@@ -113,8 +113,10 @@ export interface RoomImport {
   widthM: number;
   heightM: number;
   setPointC: number;
-  rhPct: number;
-  kind: (typeof roomKinds)[number];
+  /** Absent for an existing room when the file has no RH column (the room keeps its own). */
+  rhPct?: number;
+  /** Absent for an existing room when the file has no kind column. */
+  kind?: (typeof roomKinds)[number];
   construction: Construction;
 }
 
@@ -177,11 +179,24 @@ export function planRooms(table: Table, existing: { id: string; name: string }[]
       while (ids.has(id)) id = `${base}-${k++}`;
       ids.add(id);
     }
-    items.push({ id, existing: Boolean(match), name, lengthM: num("lengthM")!, widthM: num("widthM")!, heightM: num("heightM")!, setPointC: sp, rhPct: rh ?? defaultRh, kind, construction: cons });
+    // A new room gets the stated defaults; an existing one changes only what the file gives.
+    const hasKind = typeof v.kind === "string";
+    items.push({
+      id,
+      existing: Boolean(match),
+      name,
+      lengthM: num("lengthM")!,
+      widthM: num("widthM")!,
+      heightM: num("heightM")!,
+      setPointC: sp,
+      rhPct: rh ?? (match ? undefined : defaultRh),
+      kind: hasKind || !match ? kind : undefined,
+      construction: cons,
+    });
   }
   if (!columns.some((c) => c.spec.key === "construction")) notes.push(`No construction column: new rooms get ${DEFAULT_CONSTRUCTION} (mm) on walls, roof and floor.`);
-  if (!columns.some((c) => c.spec.key === "rhPct")) notes.push(`No RH column: rooms get ${defaultRh} % RH.`);
-  notes.push("Rooms whose name matches an existing room update its size, set point, RH and kind; their surfaces are kept. New rooms get four outside walls, a roof and a floor (a heated slab under rooms below 0 °C) of the construction given.");
+  if (!columns.some((c) => c.spec.key === "rhPct")) notes.push(`No RH column: new rooms get ${defaultRh} % RH; existing rooms keep theirs.`);
+  notes.push("Rooms whose name matches an existing room update its size and set point (and RH and kind where the file gives them); their surfaces are kept. New rooms get four outside walls, a roof and a floor (a heated slab under rooms below 0 °C) of the construction given.");
   return { rows, errors, notes, items };
 }
 
@@ -193,12 +208,12 @@ export function roomDoc(r: RoomImport): Record<string, unknown> {
   return {
     id: r.id,
     name: r.name,
-    kind: r.kind,
+    kind: r.kind ?? "storage",
     lengthM: r.lengthM,
     widthM: r.widthM,
     heightM: r.heightM,
     setPointC: r.setPointC,
-    rhPct: r.rhPct,
+    rhPct: r.rhPct ?? defaultRh,
     surfaces: [
       wall("N", "length"),
       wall("S", "length"),

@@ -70,7 +70,16 @@ export async function importRooms(workspaceId: string, facilityId: string, user:
   for (const r of plan.items) {
     if (r.existing) {
       const i = rooms.findIndex((x) => x.id === r.id);
-      rooms[i] = { ...rooms[i], name: r.name, kind: r.kind, lengthM: r.lengthM, widthM: r.widthM, heightM: r.heightM, setPointC: r.setPointC, rhPct: r.rhPct };
+      rooms[i] = {
+        ...rooms[i],
+        name: r.name,
+        lengthM: r.lengthM,
+        widthM: r.widthM,
+        heightM: r.heightM,
+        setPointC: r.setPointC,
+        ...(r.rhPct !== undefined ? { rhPct: r.rhPct } : {}),
+        ...(r.kind !== undefined ? { kind: r.kind } : {}),
+      };
     } else rooms.push(roomDoc(r));
   }
   const saved = await saveFacilityModel({ workspaceId, facilityId, userId: user.id, baseVersion: m.version, doc: { ...m.doc, rooms } as ModelDoc, summary: `Imported ${plan.items.length} rooms from ${u.fileName}`.slice(0, 200) });

@@ -23,6 +23,7 @@ interface Props {
   canCreate: boolean;
   canApply: boolean;
   installedRecorded: boolean;
+  currentVersion: number;
 }
 
 const when = (iso: string) => new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" });
@@ -135,6 +136,11 @@ export function StockingChecks(p: Props) {
             roomNames={roomNames}
             canCreate={p.canCreate}
             canApply={p.canApply}
+            currentVersion={p.currentVersion}
+            onRerun={(s) =>
+              create.mutate({ name: s.name.endsWith(`(v${p.currentVersion})`) ? s.name : `${s.name} (v${p.currentVersion})`.slice(0, 120), changes: s.changes })
+            }
+            rerunPending={create.isPending}
             onChanged={(s) => {
               qc.setQueryData<ScenarioDto[]>(["scenarios", p.facilityId], (old) => (old ?? []).map((x) => (x.id === s.id ? s : x)));
               router.refresh();
@@ -166,6 +172,9 @@ function ScenarioDetail({
   roomNames,
   canCreate,
   canApply,
+  currentVersion,
+  onRerun,
+  rerunPending,
   onChanged,
 }: {
   s: ScenarioDto;
@@ -174,8 +183,12 @@ function ScenarioDetail({
   roomNames: Record<string, string>;
   canCreate: boolean;
   canApply: boolean;
+  currentVersion: number;
+  onRerun: (s: ScenarioDto) => void;
+  rerunPending: boolean;
   onChanged: (s: ScenarioDto) => void;
 }) {
+  const stale = s.baseVersion < currentVersion && !s.appliedAt;
   const [to, setTo] = useState("");
   const [emailOpen, setEmailOpen] = useState(false);
   const [msg, setMsg] = useState<{ ok: boolean; text: string; field?: string } | null>(null);
@@ -231,6 +244,16 @@ function ScenarioDetail({
           ) : null}
         </div>
       </header>
+      {stale ? (
+        <p role="status" className="flex flex-wrap items-center gap-2 rounded border border-warn/50 bg-warn/10 p-2 text-sm">
+          ⚠ The model is now version {currentVersion}; this check ran against version {s.baseVersion}.
+          {canCreate ? (
+            <Button onClick={() => onRerun(s)} disabled={rerunPending}>
+              {rerunPending ? "Running…" : `Run it again on version ${currentVersion}`}
+            </Button>
+          ) : null}
+        </p>
+      ) : null}
       {emailOpen ? (
         <form
           className="flex flex-wrap items-end gap-2 rounded border border-line bg-surface-2 p-3"

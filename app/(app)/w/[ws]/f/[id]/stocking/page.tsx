@@ -39,6 +39,7 @@ export default async function StockingPage({ params, searchParams }: PageProps<"
         canCreate={can(a.access.role, "scenario.create")}
         canApply={can(a.access.role, "scenario.apply")}
         installedRecorded={d.installedRecorded}
+        currentVersion={d.version}
     />
   );
 }
