@@ -91,6 +91,7 @@ describe("Excel export round trip", () => {
       expect(ws.views[0]).toMatchObject({ state: "frozen", ySplit: HEADER_ROW });
       expect(ws.autoFilter).toBeTruthy();
       expect(ws.getColumn(1).width).toBeGreaterThan(5);
+      expect(ws.pageSetup).toMatchObject({ orientation: "landscape", fitToWidth: 1, printTitlesRow: "3:3" });
     }
   });
 

@@ -87,6 +87,9 @@ function table<R>(ws: ExcelJS.Worksheet, title: string, context: string, cols: C
     });
   });
   ws.views = [{ state: "frozen", xSplit: 1, ySplit: HEADER_ROW, topLeftCell: `B${HEADER_ROW + 1}` }];
+  // Printed (or sent as PDF): A4 landscape, one page wide, the header row repeated on each page.
+  ws.pageSetup = { paperSize: 9, orientation: "landscape", fitToPage: true, fitToWidth: 1, fitToHeight: 0, printTitlesRow: `${HEADER_ROW}:${HEADER_ROW}` };
+  ws.headerFooter = { oddFooter: `&L${title.replace(/&/g, "&&")}&RPage &P of &N` };
   ws.autoFilter = { from: { row: HEADER_ROW, column: 1 }, to: { row: HEADER_ROW + Math.max(rows.length, 1), column: cols.length } };
 }
 
