@@ -9,9 +9,10 @@ import { facilityFluidsNeeded, type FacilityModel } from "@/lib/engine/model";
 import { loadFluid } from "@/lib/engine/thermo";
 import { applyStockingChanges, runStockingCheck, StockingError, type ScenarioChanges, type StockingCheckResult, type Verdict } from "@/lib/engine/stocking";
 import type { UnitSystem } from "@/lib/units";
-import { loadFacilityModel, saveFacilityModel } from "@/features/facilities/model";
+import { computeFacilityResults, loadFacilityModel, saveFacilityModel } from "@/features/facilities/model";
 import type { ModelDoc } from "@/features/facilities/engine-model";
-import type { ScenarioDto } from "./schema";
+import type { InstalledDto, ScenarioDto } from "./schema";
+import { DEFAULT_SELECTION_MARGIN, installedFromDesign, type InstalledPlantRaw } from "./installed";
 import { emailText } from "./summary";
 
 type Row = typeof scenarios.$inferSelect;
@@ -183,4 +184,37 @@ export async function emailScenario(args: {
   });
   for (const to of args.to) await sendMail({ to, subject: mail.subject, text: mail.text });
   return { sent: args.to.length };
+}
+
+/** The installed plant as recorded, and one proposed from the design at a selection margin. */
+export async function installedDto(workspaceId: string, facilityId: string, margin = DEFAULT_SELECTION_MARGIN): Promise<InstalledDto> {
+  const m = await loadFacilityModel(workspaceId, facilityId);
+  const model = m.engineModel();
+  const { result } = await computeFacilityResults(model);
+  const recorded = model.plant.installed;
+  return {
+    version: m.version,
+    installed: recorded && recorded.evaporators.length + recorded.compressors.length + recorded.condensers.length > 0 ? recorded : null,
+    proposed: installedFromDesign(result, margin),
+    margin,
+    rooms: Object.fromEntries(model.rooms.map((r) => [r.id, r.name])),
+    circuits: Object.fromEntries(result.plant.circuits.map((c) => [c.id, c.tag])),
+  };
+}
+
+/** Records the installed plant in the model as a new version (designers and owners). */
+export async function saveInstalled(args: { workspaceId: string; facilityId: string; userId: string; userEmail: string; baseVersion: number; installed: InstalledPlantRaw }) {
+  const m = await loadFacilityModel(args.workspaceId, args.facilityId);
+  const doc = { ...m.doc, plant: { ...(m.doc.plant ?? {}), installed: args.installed } } as ModelDoc;
+  const saved = await saveFacilityModel({ workspaceId: args.workspaceId, facilityId: args.facilityId, userId: args.userId, baseVersion: args.baseVersion, doc, summary: "Installed plant recorded" });
+  await audit({
+    workspaceId: args.workspaceId,
+    actorId: args.userId,
+    actorEmail: args.userEmail,
+    action: "model.edited",
+    targetType: "facility",
+    targetId: args.facilityId,
+    detail: { version: saved.version, baseVersion: args.baseVersion, summary: "Installed plant recorded" },
+  });
+  return { version: saved.version };
 }

@@ -1,5 +1,7 @@
 import { z } from "zod";
 import { scenarioChangesSchema } from "@/lib/engine/stocking/schema";
+import { installedPlantSchema } from "@/lib/engine/plant/schema";
+import type { InstalledPlantRaw } from "./installed";
 import type { StockingCheckResult, Verdict } from "@/lib/engine/stocking";
 
 export { scenarioChangesSchema };
@@ -52,3 +54,23 @@ export interface CommodityOption {
 }
 
 export type CreateScenarioInput = z.input<typeof createScenarioSchema>;
+
+export const installedQuery = z.object({
+  margin: z.coerce.number().min(0, "margin must be between 0 and 100 %").max(1, "margin must be between 0 and 100 %").optional(),
+});
+
+export const saveInstalledSchema = z.object({
+  baseVersion: z.number({ error: "baseVersion (the version you edited) is required" }).int().min(1),
+  installed: installedPlantSchema,
+});
+
+export interface InstalledDto {
+  version: number;
+  /** As recorded in the model, or null. */
+  installed: InstalledPlantRaw | null;
+  /** From the design at the requested selection margin (not saved). */
+  proposed: InstalledPlantRaw;
+  margin: number;
+  rooms: Record<string, string>;
+  circuits: Record<string, string>;
+}

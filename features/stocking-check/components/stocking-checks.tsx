@@ -11,6 +11,7 @@ import { ScenarioForm, type CommodityOption, type RoomOption } from "./scenario-
 import { ScenarioResult } from "./scenario-result";
 import { VerdictBadge } from "./verdict-badge";
 import { ScenarioCompare } from "./scenario-compare";
+import { InstalledPlant } from "./installed-plant";
 
 interface Props {
   ws: string;
@@ -24,6 +25,7 @@ interface Props {
   canApply: boolean;
   installedRecorded: boolean;
   currentVersion: number;
+  canEditModel: boolean;
 }
 
 const when = (iso: string) => new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" });
@@ -113,7 +115,8 @@ export function StockingChecks(p: Props) {
       <section className="flex min-w-0 flex-col gap-4">
         {!p.installedRecorded ? (
           <p role="status" className="rounded border border-warn/50 bg-warn/10 p-3 text-sm">
-            ⚠ No installed plant is recorded for this facility, so a check has nothing to compare with. A designer records the installed evaporators, compressors and condensers in the model.
+            ⚠ No installed plant is recorded for this facility, so a check has nothing to compare with.{" "}
+            {p.canEditModel ? "Record it below: propose it from the design, correct the ratings to the equipment installed, and save." : "A designer records the installed evaporators, compressors and condensers."}
           </p>
         ) : null}
         {creating && p.canCreate ? (
@@ -147,6 +150,7 @@ export function StockingChecks(p: Props) {
             }}
           />
         ) : null}
+        <InstalledPlant ws={p.ws} facilityId={p.facilityId} unitSystem={p.unitSystem} canEdit={p.canEditModel} recorded={p.installedRecorded} />
       </section>
     </main>
   );

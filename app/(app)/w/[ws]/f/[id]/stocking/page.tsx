@@ -40,6 +40,7 @@ export default async function StockingPage({ params, searchParams }: PageProps<"
         canApply={can(a.access.role, "scenario.apply")}
         installedRecorded={d.installedRecorded}
         currentVersion={d.version}
+        canEditModel={can(a.access.role, "model.edit")}
     />
   );
 }
