@@ -270,6 +270,25 @@ describe("incremental engine reach", () => {
   });
 });
 
+describe("incremental engine and shared surfaces", () => {
+  it("an edit to a shared wall recomputes the neighbour that counts it too, matching a full compute", () => {
+    const eng = createFacilityEngine();
+    const m = model();
+    eng.compute(m);
+    const owner = m.rooms.find((r) => r.surfaces.some((s) => typeof s.otherSide === "object"))!;
+    const j = owner.surfaces.findIndex((s) => typeof s.otherSide === "object");
+    const neighbourId = (owner.surfaces[j].otherSide as { roomId: string }).roomId;
+    const surfaces = owner.surfaces.map((s, k) => (k === j ? { ...s, uValueWm2K: 0.5, layers: undefined } : s));
+    const edited: FacilityModel = { ...m, rooms: m.rooms.map((r) => (r === owner ? { ...owner, surfaces } : r)) };
+    const inc = eng.compute(edited);
+    expect(eng.lastStats.roomsComputed).toBeGreaterThanOrEqual(2);
+    const full = computeFacility(edited);
+    expect(inc.ledger.rooms).toEqual(full.ledger.rooms);
+    const n = full.ledger.rooms.find((r) => r.roomId === neighbourId)!;
+    expect(n.components.some((c) => c.label.includes(`shared with room ${owner.id}`))).toBe(true);
+  });
+});
+
 describe("equipment schedule", () => {
   it("lists every item with its stored tag, and removing one renumbers nothing", () => {
     const rows = buildSchedule(computeFacility(model()).plant);

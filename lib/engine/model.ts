@@ -341,7 +341,14 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
       const globalKey = hashString(JSON.stringify([shared, model.plant.options]));
       // The ledger context (site and room air by psychrometrics, door lookup) depends only on
       // the site, the options, each room's id / set point / RH and the doors: reuse it.
-      const ctxKey = `${globalKey}|${model.rooms.map((r) => `${r.id}:${r.setPointC}/${r.rhPct}`).join(",")}`;
+      // Shared surfaces are counted in both rooms from the context, so a change to one (or to
+      // its owner's dimensions, which give its area) must rebuild it.
+      const ctxKey = `${globalKey}|${model.rooms
+        .map((r) => {
+          const shared = r.surfaces.filter((s) => typeof s.otherSide === "object");
+          return `${r.id}:${r.setPointC}/${r.rhPct}${shared.length ? `#${r.lengthM}x${r.widthM}x${r.heightM}:${shared.map(hashOf).join(";")}` : ""}`;
+        })
+        .join(",")}`;
       const ctxSame = ctxKey === lastCtxKey && lastCtx !== undefined && sameJson(model.doors, lastDoors);
       lastDoors = model.doors;
       let lctx = lastCtx;
@@ -366,6 +373,9 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
         const doors = lctx.doorsByRoom.get(room.id) ?? [];
         const faced: string[] = [];
         for (const s of room.surfaces) if (typeof s.otherSide === "object") faced.push(faces.get(s.otherSide.roomId) ?? "");
+        // Shared surfaces entered in a neighbour (with the neighbour's set point and size).
+        for (const m of lctx.sharedSurfaces.get(room.id) ?? [])
+          faced.push(`${faces.get(m.owner.id) ?? ""}#${m.owner.lengthM}x${m.owner.widthM}x${m.owner.heightM}:${hashOf(m.surface)}`);
         for (const d of doors) for (const side of d.door.sides) faced.push(faces.get(side) ?? side);
         const key = [globalKey, i, hashOf(room), evs.map(hashOf).join(","), doors.map((d) => hashOf(d.door)).join(","), faced.join(",")].join("|");
         let sol = roomMemo.get(key);

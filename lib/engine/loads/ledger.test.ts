@@ -73,6 +73,32 @@ describe("room ledger sums", () => {
   });
 });
 
+describe("shared surfaces are entered once and counted on both sides", () => {
+  // Wall U 0.25 × 50 m² between a 0 °C room and a −20 °C room: 0.25·50·20 = 250 W flows from
+  // the warm room into the cold one (q = U·A·ΔT, ASHRAE Handbook—Refrigeration).
+  const rooms = [
+    room({ surfaces: [{ id: "w", kind: "wall", areaM2: 50, uValueWm2K: 0.25, otherSide: { roomId: "cold" } }] }),
+    room({ id: "cold", name: "Cold", setPointC: -20 }),
+  ];
+
+  it("the colder room gains what the warmer room loses", () => {
+    const credited = ledger(rooms, [], { colderNeighbour: "credit" });
+    const gain = credited.rooms[1].components.find((c) => c.kind === "transmission" && c.label.includes("shared with room r1"))!;
+    expect(gain.powerW).toBeCloseTo(250, 9);
+    expect(gain.trace.inputs.enteredIn).toBe("rooms.0.surfaces.0 (room r1)");
+    expect(credited.rooms[0].averageLoadW + credited.rooms[1].averageLoadW).toBeCloseTo(0, 9);
+    // ignored on the warm side by default, still counted on the cold side
+    const byDefault = ledger(rooms);
+    expect(byDefault.rooms[0].averageLoadW).toBe(0);
+    expect(byDefault.rooms[1].averageLoadW).toBeCloseTo(250, 9);
+  });
+
+  it("the same surface entered in both rooms is refused, naming the second entry", () => {
+    const twice = [rooms[0], room({ id: "cold", name: "Cold", setPointC: -20, surfaces: [{ kind: "wall", areaM2: 50, uValueWm2K: 0.25, otherSide: { roomId: "r1" } }] })];
+    expect(fieldOf(() => ledger(twice))).toBe("rooms.1.surfaces.0.otherSide");
+  });
+});
+
 describe("product pull-down on the 24-hour basis", () => {
   // 1000 kg/day of apples 20 → 2 °C: 1000·3.8171·18 = 68 707 kJ/day (Chen c_u, see product.test.ts).
   const apples = (arrivals?: number[]) =>

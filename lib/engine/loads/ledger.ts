@@ -20,6 +20,7 @@ import {
   type LedgerOptions,
   type PackagingInput,
   type RoomInput,
+  type SurfaceInput,
 } from "./schema";
 import { INSIDE_FILM_M2KW, defaultOutsideFilm, solarAllowanceK, surfaceAreaM2, transmissionW, uValue } from "./transmission";
 import type { LoadComponent, LoadComponentKind, LoadTrace } from "./types";
@@ -51,6 +52,19 @@ export interface LedgerContext {
   doorsByRoom: ReadonlyMap<string, ReadonlyArray<{ door: DoorInput; index: number }>>;
   /** The input's own commodities (overriding the built-in library), by id. */
   commodities: ReadonlyMap<string, Commodity>;
+  /**
+   * Walls, floors or ceilings shared between two rooms are entered once, in one of them; this
+   * lists, for each room, the shared surfaces entered in a neighbour, so the heat through them
+   * is counted on both sides.
+   */
+  sharedSurfaces: ReadonlyMap<string, ReadonlyArray<SharedSurface>>;
+}
+
+export interface SharedSurface {
+  surface: SurfaceInput;
+  owner: RoomInput;
+  ownerIndex: number;
+  surfaceIndex: number;
 }
 
 export interface RoomLoadResult {
@@ -146,6 +160,31 @@ export function contextFromParsed(input: LedgerInput): LedgerContext {
   input.doors.forEach((door, index) => {
     for (const side of door.sides) doorsByRoom.get(side)?.push({ door, index });
   });
+  const sharedSurfaces = new Map<string, SharedSurface[]>();
+  input.rooms.forEach((owner, ownerIndex) => {
+    owner.surfaces.forEach((surface, surfaceIndex) => {
+      if (typeof surface.otherSide !== "object") return;
+      const other = surface.otherSide.roomId;
+      const list = sharedSurfaces.get(other);
+      const entry = { surface, owner, ownerIndex, surfaceIndex };
+      if (list) list.push(entry);
+      else sharedSurfaces.set(other, [entry]);
+    });
+  });
+  // A shared surface entered in both rooms would be counted twice on each side.
+  input.rooms.forEach((room, i) => {
+    room.surfaces.forEach((s, j) => {
+      if (typeof s.otherSide !== "object") return;
+      const otherId = s.otherSide.roomId;
+      const back = (sharedSurfaces.get(room.id) ?? []).find((m) => m.owner.id === otherId);
+      if (back && back.ownerIndex < i) {
+        fail(
+          `rooms.${i}.surfaces.${j}.otherSide`,
+          `the surface between rooms "${back.owner.id}" and "${room.id}" is already entered in room "${back.owner.id}" (surfaces.${back.surfaceIndex}); enter a shared wall once, in one of the two rooms — it is counted for both`,
+        );
+      }
+    });
+  });
   const commodities = new Map<string, Commodity>();
   // `commodities` came after the first contract; inputs built by hand may not carry it.
   for (const c of input.commodities ?? []) commodities.set(c.id, buildCustomCommodity(c));
@@ -164,6 +203,7 @@ export function contextFromParsed(input: LedgerInput): LedgerContext {
     roomIndex,
     doorsByRoom,
     commodities,
+    sharedSurfaces,
   };
 }
 
@@ -342,6 +382,45 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     );
     spreadPeriodic(hourly, powerW * 24, 0, 24);
   });
+  // The same transmission seen from this room, for shared surfaces entered in a neighbour.
+  for (const m of ctx.sharedSurfaces.get(room.id) ?? []) {
+    const s = m.surface;
+    const field = `rooms.${m.ownerIndex}.surfaces.${m.surfaceIndex}`;
+    const areaM2 = surfaceAreaM2(s, m.owner, field);
+    const rsi = s.insideFilmM2KW ?? INSIDE_FILM_M2KW;
+    const rse = s.outsideFilmM2KW ?? defaultOutsideFilm(s);
+    const u = uValue(s.layers, rsi, rse, s.uValueWm2K);
+    const otherC = ctx.roomAir.get(m.owner.id)?.tempC ?? m.owner.setPointC;
+    const qW = transmissionW(u.uValueWm2K, areaM2, otherC, tRoom);
+    const ignored = qW < 0 && ignoreColder;
+    const powerW = ignored ? 0 : qW;
+    if (qW < 0) heatOutflowW -= qW;
+    components.push(
+      component(
+        "transmission",
+        `${s.kind} shared with room ${m.owner.id}`,
+        powerW,
+        0,
+        {
+          method: "Transmission q = U·A·ΔT through a surface shared with a neighbouring room",
+          source: `${HANDBOOK}; U = 1/(R_si + ΣL/λ + R_se), ASHRAE Handbook—Fundamentals`,
+          inputs: {
+            enteredIn: `${field} (room ${m.owner.id})`,
+            areaM2: round(areaM2),
+            uValueWm2K: round(u.uValueWm2K),
+            uMethod: u.method,
+            otherSideTempC: otherC,
+            roomTempC: tRoom,
+            computedW: round(qW),
+            colderSide: ignored ? "heat to a colder side ignored (option colderNeighbour = ignore)" : "counted",
+          },
+          formula: "q = U·A·(T_neighbour − T_room)",
+        },
+        s.id ? `${s.id}@${m.owner.id}` : undefined,
+      ),
+    );
+    spreadPeriodic(hourly, powerW * 24, 0, 24);
+  }
 
   // Door infiltration -------------------------------------------------------------------------
   for (const { door, index } of ctx.doorsByRoom.get(room.id) ?? []) {
