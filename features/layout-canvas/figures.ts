@@ -41,6 +41,29 @@ const KIND_LABEL: Record<string, string> = {
   anteroom: "anteroom",
 };
 
+/**
+ * Formatting a number for display costs more than computing it (locale formatting), and a
+ * canvas redraws hundreds of unchanged figures per edit: formatted strings are memoised.
+ */
+const memo = new Map<string, string>();
+function cached(key: string, f: () => string): string {
+  let v = memo.get(key);
+  if (v === undefined) {
+    if (memo.size > 50_000) memo.clear();
+    v = f();
+    memo.set(key, v);
+  }
+  return v;
+}
+const F = {
+  temp: (v: number, s: UnitSystem) => cached(`t|${s}|${v}`, () => fmt.temp(v, s)),
+  tempDiff: (v: number, s: UnitSystem) => cached(`d|${s}|${v}`, () => fmt.tempDiff(v, s)),
+  power: (v: number, s: UnitSystem, k: "refrigeration" | "electrical" | "heat" = "refrigeration") => cached(`p|${s}|${k}|${v}`, () => fmt.power(v, s, k)),
+  length: (v: number, s: UnitSystem) => cached(`l|${s}|${v}`, () => fmt.length(v, s)),
+  cop: (v: number) => cached(`c|${v}`, () => fmt.cop(v)),
+  number: (v: number, d: number) => cached(`n|${d}|${v}`, () => fmt.number(v, d)),
+};
+
 /** Node id → what it shows; figures are left out where the evaluation has no result for the item. */
 export function nodeViews(doc: CanvasDoc, result: FacilityResult | null, s: UnitSystem): Map<string, NodeView> {
   const out = new Map<string, NodeView>();
@@ -55,25 +78,25 @@ export function nodeViews(doc: CanvasDoc, result: FacilityResult | null, s: Unit
   out.set(OUTDOORS, { kind: "Outdoors", title: "Outdoors", subtitle: "site design conditions", figures: [] });
   for (const r of doc.rooms) {
     const res = rooms.get(r.id);
-    const figures: Figure[] = [{ label: "Set point", value: fmt.temp(r.setPointC, s) }];
-    if (res) figures.push({ label: "Required", value: fmt.power(res.designCapacityW, s), title: "Design capacity: the larger of 24-h energy × (1 + safety factor) ÷ run hours and the peak hour × (1 + safety factor)" });
-    out.set(nodeId("room", r.id), { kind: "Room", title: r.name, subtitle: `${KIND_LABEL[r.kind] ?? r.kind} · ${fmt.number(r.lengthM * r.widthM, 0)} m²`, figures });
+    const figures: Figure[] = [{ label: "Set point", value: F.temp(r.setPointC, s) }];
+    if (res) figures.push({ label: "Required", value: F.power(res.designCapacityW, s), title: "Design capacity: the larger of 24-h energy × (1 + safety factor) ÷ run hours and the peak hour × (1 + safety factor)" });
+    out.set(nodeId("room", r.id), { kind: "Room", title: r.name, subtitle: `${KIND_LABEL[r.kind] ?? r.kind} · ${F.number(r.lengthM * r.widthM, 0)} m²`, figures });
   }
   for (const d of doc.doors) {
     const figures: Figure[] = [
-      { label: "Size", value: `${fmt.length(d.widthM, s).replace(/ .*/, "")} × ${fmt.length(d.heightM, s)}` },
+      { label: "Size", value: `${F.length(d.widthM, s).replace(/ .*/, "")} × ${F.length(d.heightM, s)}` },
       { label: "Protection", value: PROTECTION[d.protection ?? "none"] },
     ];
     const q = doorLoad.get(d.id);
-    if (q !== undefined) figures.push({ label: "Infiltration", value: fmt.power(q, s), title: "Gosney–Olama doorway infiltration, 24-h average" });
-    out.set(nodeId("door", d.id), { kind: "Door", title: d.name || d.id, subtitle: d.passagesPerDay !== undefined ? `${fmt.number(d.passagesPerDay, 0)} passages/day` : undefined, figures });
+    if (q !== undefined) figures.push({ label: "Infiltration", value: F.power(q, s), title: "Gosney–Olama doorway infiltration, 24-h average" });
+    out.set(nodeId("door", d.id), { kind: "Door", title: d.name || d.id, subtitle: d.passagesPerDay !== undefined ? `${F.number(d.passagesPerDay, 0)} passages/day` : undefined, figures });
   }
   for (const e of evaporators(doc)) {
     const z = sized.get(e.id);
     const figures: Figure[] = z
       ? [
-          { label: "Duty", value: fmt.power(z.dutyW, s) },
-          { label: "TD", value: fmt.tempDiff(z.tdK, s) },
+          { label: "Duty", value: F.power(z.dutyW, s) },
+          { label: "TD", value: F.tempDiff(z.tdK, s) },
           { label: "Units", value: String(z.units) },
         ]
       : [];
@@ -83,17 +106,17 @@ export function nodeViews(doc: CanvasDoc, result: FacilityResult | null, s: Unit
     const r = circ.get(c.id);
     const figures: Figure[] = r
       ? [
-          { label: "Suction", value: fmt.temp(r.suctionC, s) },
-          { label: "Condensing", value: fmt.temp(r.condensingC, s) },
-          { label: "COP", value: fmt.cop(r.cop), title: r.copCarnot ? `Carnot COP ${fmt.cop(r.copCarnot)}` : undefined },
-          { label: "Shaft", value: fmt.power(r.shaftPowerW, s, "electrical").replace("kW(e)", "kW shaft"), title: "Compressor shaft power (mechanical)" },
+          { label: "Suction", value: F.temp(r.suctionC, s) },
+          { label: "Condensing", value: F.temp(r.condensingC, s) },
+          { label: "COP", value: F.cop(r.cop), title: r.copCarnot ? `Carnot COP ${F.cop(r.copCarnot)}` : undefined },
+          { label: "Shaft", value: F.power(r.shaftPowerW, s, "electrical").replace("kW(e)", "kW shaft"), title: "Compressor shaft power (mechanical)" },
         ]
       : [];
     out.set(nodeId("circuit", c.id), { kind: "Circuit", title: c.tag, subtitle: `${c.refrigerant} · ${c.arrangement ?? "single-stage"}`, figures });
   }
   for (const c of condensers(doc)) {
     const r = cond.get(c.id);
-    const figures: Figure[] = r ? [{ label: "Rejected", value: fmt.power(r.heatRejectedW, s, "heat") }, { label: "Condensing", value: fmt.temp(r.condensingC, s) }] : [];
+    const figures: Figure[] = r ? [{ label: "Rejected", value: F.power(r.heatRejectedW, s, "heat") }, { label: "Condensing", value: F.temp(r.condensingC, s) }] : [];
     out.set(nodeId("condenser", c.id), { kind: "Condenser", title: c.tag, subtitle: c.type, figures });
   }
   return out;

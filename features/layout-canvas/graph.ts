@@ -492,7 +492,8 @@ export function pasteClip(doc: CanvasDoc, clip: Clip, gen: IdGen = randomId, off
 }
 
 export interface Skipped {
-  nid: string;
+  /** The node left out, or null for an installed-plant record (not drawn on the canvas). */
+  nid: string | null;
   message: string;
 }
 
@@ -535,9 +536,28 @@ export function pruneIncomplete(doc: CanvasDoc): { doc: CanvasDoc; skipped: Skip
     else if (!onCircuit) skipped.push({ nid: nodeId("evaporator", e.id), message: `${e.tag} feeds a circuit that cannot be computed yet.` });
     return inRoom && onCircuit;
   });
-  const unchanged = doors.length === doc.doors.length && evs.length === evaporators(doc).length && cs.length === circuits(doc).length;
+  // Installed-plant records (kept for stocking checks) that point at items not computed now.
+  const inst = doc.plant.installed as { evaporators?: { tag: string; roomId: string; circuitId: string }[]; compressors?: { tag: string; circuitId: string }[]; condensers?: { tag: string; condenserId: string }[] } | undefined;
+  let installed = inst;
+  if (inst) {
+    const keep = <T extends { tag: string }>(list: T[] | undefined, ok: (x: T) => boolean, what: string) =>
+      (list ?? []).filter((x) => {
+        if (ok(x)) return true;
+        skipped.push({ nid: null, message: `Installed ${what} ${x.tag} refers to an item that is missing or not connected; it is left out until that item is back.` });
+        return false;
+      });
+    const next = {
+      ...inst,
+      evaporators: keep(inst.evaporators, (x) => rooms.has(x.roomId) && cids.has(x.circuitId), "evaporator"),
+      compressors: keep(inst.compressors, (x) => cids.has(x.circuitId), "compressor"),
+      condensers: keep(inst.condensers, (x) => condenserIds.has(x.condenserId), "condenser"),
+    };
+    const same = next.evaporators.length === (inst.evaporators ?? []).length && next.compressors.length === (inst.compressors ?? []).length && next.condensers.length === (inst.condensers ?? []).length;
+    if (!same) installed = next;
+  }
+  const unchanged = doors.length === doc.doors.length && evs.length === evaporators(doc).length && cs.length === circuits(doc).length && installed === inst;
   if (unchanged) return { doc, skipped };
-  return { doc: { ...doc, doors, plant: { ...doc.plant, evaporators: evs, circuits: cs } }, skipped };
+  return { doc: { ...doc, doors, plant: { ...doc.plant, evaporators: evs, circuits: cs, ...(inst ? { installed } : {}) } }, skipped };
 }
 
 /** The node a validation path (`rooms.2.setPointC`, `plant.circuits.0.tag`) points at, and the field inside it. */

@@ -128,7 +128,7 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
     const m = new Map<string, { state: "problem" | "skipped"; note: string }>();
     if (!ev) return m;
     for (const p of ev.problems) if (p.nid && !m.has(p.nid)) m.set(p.nid, { state: "problem", note: p.message });
-    for (const k of ev.skipped) if (!m.has(k.nid)) m.set(k.nid, { state: "skipped", note: k.message });
+    for (const k of ev.skipped) if (k.nid && !m.has(k.nid)) m.set(k.nid, { state: "skipped", note: k.message });
     return m;
   }, [ev]);
   const stale = !current || engine.pending || !ev?.result;
@@ -141,30 +141,39 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
       const out = nodeIdsOf(doc).map((nid): CanvasNode => {
         const view = views.get(nid) ?? { kind: parseNodeId(nid).kind, title: labelOf(doc, nid), figures: [] };
         const note = notes.get(nid);
-        const data = { ...view, state: note?.state ?? "ok", note: note?.note, stale, readOnly: !canEdit } as CanvasNode["data"];
+        const data = { ...view, state: note?.state ?? "ok", note: note?.note, readOnly: !canEdit } as CanvasNode["data"];
         const p = byId.get(nid);
-        if (p) return { ...p, data, selected: sel.size ? sel.has(nid) : p.selected };
+        if (p) {
+          // Unchanged nodes keep their object, so React Flow re-renders only what an edit reached.
+          const selected = sel.size ? sel.has(nid) : p.selected;
+          if (selected === p.selected && JSON.stringify(p.data) === JSON.stringify(data)) return p;
+          return { ...p, data, selected };
+        }
         return { id: nid, type: parseNodeId(nid).kind, position: known.current[nid], data, deletable: canEdit && nid !== OUTDOORS, selected: sel.has(nid) };
       });
       toSelect.current = new Set();
       return out;
     });
-  }, [doc, views, notes, stale, canEdit]);
+  }, [doc, views, notes, canEdit]);
 
   useEffect(() => {
     setEdges((prev) => {
-      const sel = new Set(prev.filter((e) => e.selected).map((e) => e.id));
-      return linksOf(doc).map((l) => ({
+      const byId = new Map(prev.map((e) => [e.id, e]));
+      return linksOf(doc).map((l) => {
+        const p = byId.get(l.id);
+        if (p && p.source === l.source && p.target === l.target && p.deletable === canEdit) return p;
+        return {
         id: l.id,
         source: l.source,
         target: l.target,
         sourceHandle: "b",
         targetHandle: "t",
-        selected: sel.has(l.id),
-        deletable: canEdit,
-        style: EDGE_STYLE[l.kind],
-        ariaLabel: `${labelOf(doc, l.source)} to ${labelOf(doc, l.target)}`,
-      }));
+          selected: p?.selected ?? false,
+          deletable: canEdit,
+          style: EDGE_STYLE[l.kind],
+          ariaLabel: `${labelOf(doc, l.source)} to ${labelOf(doc, l.target)}`,
+        };
+      });
     });
   }, [doc, canEdit]);
 
@@ -422,10 +431,12 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
                       <button className="text-left text-ink hover:underline" onClick={() => focusNode(p.nid!)}>
                         <span className="font-medium">{labelOf(doc, p.nid)}</span> — {p.text}
                       </button>
-                    ) : (
+                    ) : p.text.startsWith("site") ? (
                       <a className="text-ink hover:underline" href={`/w/${ws}/f/${facilityId}/settings`}>
                         Site conditions — {p.text}
                       </a>
+                    ) : (
+                      <span className="text-ink">{p.text}</span>
                     )}
                   </li>
                 ))}
@@ -433,7 +444,7 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
             ) : null}
           </div>
         ) : null}
-        <div ref={wrapper} className="relative min-h-0 flex-1" onDragOver={(e) => canEdit && e.preventDefault()} onDrop={onDrop} data-testid="canvas">
+        <div ref={wrapper} className="relative min-h-0 flex-1" data-stale={stale ? "true" : "false"} onDragOver={(e) => canEdit && e.preventDefault()} onDrop={onDrop} data-testid="canvas">
           <ReactFlow<CanvasNode, Edge>
             nodes={nodes}
             edges={edges}
@@ -500,7 +511,7 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
           </button>
           {resultsOpen ? (
             <div className="max-h-56 overflow-auto">
-              <ResultsPanel result={ev?.result ?? null} s={s} ms={ev?.ms ?? null} pending={engine.pending} onSelect={focusNode} />
+              <ResultsPanel result={ev?.result ?? null} s={s} ms={ev?.ms ?? null} onSelect={focusNode} />
             </div>
           ) : null}
         </section>

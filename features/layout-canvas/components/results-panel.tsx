@@ -1,9 +1,10 @@
 "use client";
+import { memo } from "react";
 import type { FacilityResult } from "@/lib/engine/model";
 import { fmt, type UnitSystem } from "@/lib/units";
 
-/** The live totals, rooms and circuits under the canvas (collapsible). */
-export function ResultsPanel({ result, s, ms, pending, onSelect }: { result: FacilityResult | null; s: UnitSystem; ms: number | null; pending: boolean; onSelect: (nid: string) => void }) {
+/** The live totals, rooms and circuits under the canvas (collapsible); redrawn only when the results change. */
+export const ResultsPanel = memo(function ResultsPanel({ result, s, ms, onSelect }: { result: FacilityResult | null; s: UnitSystem; ms: number | null; onSelect: (nid: string) => void }) {
   if (!result)
     return (
       <div className="grid grid-cols-3 gap-3 p-3" aria-busy="true">
@@ -30,7 +31,7 @@ export function ResultsPanel({ result, s, ms, pending, onSelect }: { result: Fac
         <dt className="text-muted">24-h energy</dt>
         <dd className="text-right font-mono">{fmt.number(t.totalEnergyKWhPerDay, 0)} kWh/day</dd>
         <dd className="col-span-2 pt-1 text-[11px] text-muted">
-          {pending ? "Recomputing…" : `Computed in your browser in ${fmt.number(ms ?? 0, 0)} ms`} · engine {result.engineVersion}
+          Computed in your browser in {fmt.number(ms ?? 0, 0)} ms · engine {result.engineVersion}
         </dd>
       </dl>
       <table className="w-full self-start">
@@ -102,4 +103,4 @@ export function ResultsPanel({ result, s, ms, pending, onSelect }: { result: Fac
       </div>
     </div>
   );
-}
+});
