@@ -51,6 +51,7 @@ import type { CanvasDoc, LayoutDto } from "../schema";
 import { nodeTypes, type CanvasNode } from "./nodes";
 import { Inspector } from "./inspector";
 import { ResultsPanel } from "./results-panel";
+import { Outline } from "./outline";
 
 export interface CanvasEditorProps {
   ws: string;
@@ -344,6 +345,11 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
 
   const problems = ev ? ev.problems.length + ev.skipped.length : 0;
   const [resultsOpen, setResultsOpen] = useState(true);
+  const [view, setView] = useState<"canvas" | "outline">("canvas");
+  const selectOnly = useCallback((nid: string) => {
+    setNodes((ns) => ns.map((n) => (n.selected === (n.id === nid) ? n : { ...n, selected: n.id === nid })));
+    setInspected(nid);
+  }, []);
   const [bannerOpen, setBannerOpen] = useState(true);
 
   return (
@@ -406,6 +412,13 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
           {engine.failure ? <span className="text-danger">⚠ {engine.failure}</span> : null}
           {!canEdit ? <span className="text-muted">Read-only: your role ({role}) can look and inspect but not change the model.</span> : null}
           <span className="ml-auto text-muted">{selectedIds.length > 1 ? `${selectedIds.length} selected` : null}</span>
+          <div role="group" aria-label="View" className="flex overflow-hidden rounded border border-line">
+            {(["canvas", "outline"] as const).map((v) => (
+              <button key={v} aria-pressed={view === v} className={`px-2 py-0.5 ${view === v ? "bg-accent text-accent-ink" : "bg-surface"}`} onClick={() => setView(v)}>
+                {v === "canvas" ? "Canvas" : "Outline"}
+              </button>
+            ))}
+          </div>
         </div>
         {saveState.status === "conflict" ? (
           <div role="alert" className="flex flex-wrap items-center gap-2 border-b border-danger/50 bg-danger/5 px-3 py-2 text-sm text-danger">
@@ -444,7 +457,12 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
             ) : null}
           </div>
         ) : null}
-        <div ref={wrapper} className="relative min-h-0 flex-1" data-stale={stale ? "true" : "false"} onDragOver={(e) => canEdit && e.preventDefault()} onDrop={onDrop} data-testid="canvas">
+        {view === "outline" ? (
+          <div className="min-h-0 flex-1">
+            <Outline doc={doc} result={ev?.result ?? null} s={s} canEdit={canEdit} onSelect={selectOnly} onCommit={commit} />
+          </div>
+        ) : null}
+        <div ref={wrapper} className={`relative min-h-0 flex-1 ${view === "outline" ? "hidden" : ""}`} data-stale={stale ? "true" : "false"} onDragOver={(e) => canEdit && e.preventDefault()} onDrop={onDrop} data-testid="canvas">
           <ReactFlow<CanvasNode, Edge>
             nodes={nodes}
             edges={edges}

@@ -117,8 +117,8 @@ function EntityForm({ nid, doc, unitSystem: s, canEdit, problems, onChange, onDe
   return (
     <section aria-label="Inspector" className="flex flex-col gap-3 p-3">
       <header className="flex items-baseline justify-between gap-2">
-        <h3 className="text-sm font-semibold capitalize">
-          {kind} <span className="font-mono text-muted">{String(entity.tag ?? entity.name ?? entity.id)}</span>
+        <h3 className="text-sm font-semibold">
+          <span className="capitalize">{kind}</span> <span className="font-mono text-muted">{String(entity.tag ?? entity.name ?? entity.id)}</span>
         </h3>
         {canEdit ? (
           <Button variant="danger" className="!px-2 !py-0.5 text-xs" onClick={onDelete}>
