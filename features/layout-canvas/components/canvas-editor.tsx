@@ -353,7 +353,7 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
   const [bannerOpen, setBannerOpen] = useState(true);
 
   return (
-    <div className="flex h-[calc(100vh-7.5rem)] min-h-[560px] border-t border-line" onKeyDown={onKeyDown}>
+    <div id="canvas-editor" className="flex h-[calc(100vh-7.5rem)] min-h-[560px] border-t border-line" onKeyDown={onKeyDown}>
       {canEdit ? (
         <aside aria-label="Add to the layout" className="flex w-40 shrink-0 flex-col gap-1.5 border-r border-line bg-surface-2 p-2">
           <h3 className="text-xs font-semibold text-muted">Add</h3>

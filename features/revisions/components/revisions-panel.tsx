@@ -59,7 +59,7 @@ export function RevisionsPanel({ ws, facilityId, current, rows, canRestore, canI
             <tr key={r.number} className="border-b border-line/60 align-top">
               <td className="py-1.5 font-mono">
                 {r.number}
-                {r.number === current ? <span className="ml-1 rounded bg-accent/15 px-1 font-sans text-xs text-accent">current</span> : null}
+                {r.number === current ? <span className="ml-1 rounded border border-accent px-1 font-sans text-xs text-ink">current</span> : null}
               </td>
               <td className="whitespace-nowrap text-xs">{when(r.createdAt)}</td>
               <td className="text-xs">{r.author}</td>
