@@ -462,7 +462,7 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
             <Outline doc={doc} result={ev?.result ?? null} s={s} canEdit={canEdit} onSelect={selectOnly} onCommit={commit} />
           </div>
         ) : null}
-        <div ref={wrapper} className={`relative min-h-0 flex-1 ${view === "outline" ? "hidden" : ""}`} data-stale={stale ? "true" : "false"} onDragOver={(e) => canEdit && e.preventDefault()} onDrop={onDrop} data-testid="canvas">
+        <div ref={wrapper} className={`relative min-h-0 flex-1 ${view === "outline" ? "hidden" : ""}`} onDragOver={(e) => canEdit && e.preventDefault()} onDrop={onDrop} data-testid="canvas">
           <ReactFlow<CanvasNode, Edge>
             nodes={nodes}
             edges={edges}

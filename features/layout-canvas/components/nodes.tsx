@@ -51,7 +51,7 @@ function Box({ data, selected }: NodeProps<CanvasNode>) {
       </div>
       {data.subtitle ? <div className="truncate text-muted">{data.subtitle}</div> : null}
       {data.figures.length ? (
-        <dl className="mt-1.5 grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5 in-data-[stale=true]:opacity-60">
+        <dl className="mt-1.5 grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5">
           {data.figures.map((f) => (
             <div key={f.label} className="contents" title={f.title}>
               <dt className="text-muted">{f.label}</dt>
