@@ -40,16 +40,26 @@ export function useAutosave(opts: {
   const base = useRef(opts.initial);
   const latest = useRef(doc);
   latest.current = doc;
+  const saveableRef = useRef(saveable);
+  saveableRef.current = saveable;
   const inFlight = useRef(false);
   const [state, setState] = useState<SaveState>({ status: canEdit ? "saved" : "readonly", version: opts.initial.version, message: null, conflict: null });
   const stateRef = useRef(state);
   stateRef.current = state;
 
+  const again = useRef(false);
+  const saveRef = useRef<() => Promise<void>>(async () => {});
   const save = useCallback(async () => {
-    if (inFlight.current || !canEdit) return;
+    if (!canEdit) return;
+    if (inFlight.current) {
+      // A change arrived while a save was on its way: save again once it is back.
+      again.current = true;
+      return;
+    }
     const sent = latest.current;
     if (sent === base.current.doc) return;
     inFlight.current = true;
+    let conflicted = false;
     setState((s) => ({ ...s, status: "saving", message: null }));
     try {
       const r = await api<SaveResponse>(url, { method: "PUT", json: { baseVersion: base.current.version, doc: sent, summary: "Canvas edit" } });
@@ -63,6 +73,7 @@ export function useAutosave(opts: {
       setState({ status: more ? "pending" : "saved", version: r.version, message: r.rebased ? "Merged with changes saved by someone else." : null, conflict: null });
     } catch (e) {
       if (e instanceof ApiError && e.status === 409) {
+        conflicted = true;
         const body = (e.body as { error?: { conflicts?: string[]; current?: { version: number; doc: CanvasDoc } } })?.error;
         setState((s) => ({ ...s, status: "conflict", message: e.message, conflict: body?.current ? { conflicts: body.conflicts ?? [], current: body.current } : null }));
       } else {
@@ -70,8 +81,13 @@ export function useAutosave(opts: {
       }
     } finally {
       inFlight.current = false;
+      if (again.current) {
+        again.current = false;
+        if (!conflicted && saveableRef.current) setTimeout(() => void saveRef.current(), 0);
+      }
     }
   }, [url, canEdit, adopt]);
+  saveRef.current = save;
 
   // Debounced save after each change (and again when a save finished with more to send).
   useEffect(() => {
