@@ -7,6 +7,8 @@ import { audit } from "@/lib/audit";
 import { appLink, sendMail } from "@/lib/mail";
 import { facilityFluidsNeeded, type FacilityModel } from "@/lib/engine/model";
 import { loadFluid } from "@/lib/engine/thermo";
+import { PlantError } from "@/lib/engine/plant/errors";
+import { LoadInputError } from "@/lib/engine/loads/errors";
 import { applyStockingChanges, runStockingCheck, StockingError, type ScenarioChanges, type StockingCheckResult, type Verdict } from "@/lib/engine/stocking";
 import type { UnitSystem } from "@/lib/units";
 import { computeFacilityResults, loadFacilityModel, saveFacilityModel } from "@/features/facilities/model";
@@ -38,6 +40,8 @@ function asAppError(e: unknown, model: FacilityModel, changes: ScenarioChanges):
   if (e instanceof StockingError) {
     throw new AppError(e.code === "NO_INSTALLED_PLANT" ? "calculation" : "validation", e.message, e.code === "NO_INSTALLED_PLANT" ? undefined : `changes.${e.field}`);
   }
+  // Only the engine's typed input errors are the user's to fix; anything else is a bug: logged, 500.
+  if (!(e instanceof PlantError || e instanceof LoadInputError)) throw e;
   const err = e as Error & { field?: string };
   const m = /^rooms\.(\d+)/.exec(err.field ?? "");
   const room = m ? model.rooms[Number(m[1])] : undefined;
