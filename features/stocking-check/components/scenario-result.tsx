@@ -110,6 +110,15 @@ export function ScenarioResult({ result: r, unitSystem: s, roomNames }: { result
           <p className="mt-1 text-xs text-muted">Solved by bisection on the same engine; each value fits, and one tolerance step beyond it does not.</p>
         </section>
       ) : null}
+      <details className="text-xs text-muted">
+        <summary className="cursor-pointer">How this is checked</summary>
+        <ul className="mt-1 list-disc pl-5">
+          <li>Required: the heat ledger of the changed rooms — daily load = 24-h energy × (1 + safety factor) / run hours; peak hour = the largest hourly load × (1 + safety factor).</li>
+          <li>Available: the installed plant re-rated at the new conditions — evaporators by Q = UA·TD at the new TD; running compressors (standby excluded) from their swept volume at the new suction and condensing state; condensers by UA·ΔT at the new approach.</li>
+          <li>Compressors carry the sum of their rooms (coincident peak hour); a condenser carries the heat its circuits reject at those loads.</li>
+          <li>Shortfall when required exceeds available; tight under {fmt.percent(r.tightHeadroomFraction)} headroom; the item with the least relative headroom limits.</li>
+        </ul>
+      </details>
       {r.notes.length ? (
         <ul className="text-xs text-warn">
           {r.notes.map((n) => (
