@@ -126,6 +126,37 @@ test.describe("designer on the canvas", () => {
   });
 });
 
+test.describe("keyboard on the canvas", () => {
+  test.use({ storageState: stateOf("designer") });
+
+  test("arrow keys move a node (and the position is saved); copy, paste, undo and redo", async ({ page }) => {
+    const id = await newFacility(page.request, `Canvas keys ${Date.now()}`, { schemaVersion: 1, rooms: [ROOM], doors: [], plant: {} });
+    await page.goto(`/w/${WS}/f/${id}/layout`);
+    const room = page.locator('.react-flow__node[data-id="room:cold-1"]');
+    await expect(room.locator('[data-figure="Required"]')).toHaveText(/kW/);
+    await room.click();
+    await saved(page);
+    for (let i = 0; i < 3; i++) await page.keyboard.press("ArrowRight");
+    const layoutOf = async () => (await (await page.request.get(`/api/v1/workspaces/${WS}/facilities/${id}/layout`)).json()).layout.positions["room:cold-1"];
+    await expect.poll(layoutOf, { timeout: 10_000 }).toMatchObject({ y: expect.any(Number) });
+    const moved = await layoutOf();
+    await page.keyboard.press("ArrowRight");
+    await expect.poll(async () => (await layoutOf()).x, { timeout: 10_000 }).toBeGreaterThan(moved.x);
+
+    await page.keyboard.press("Control+c");
+    await page.keyboard.press("Control+v");
+    await expect(page.locator(".react-flow__node-room")).toHaveCount(2);
+    await expect(page.getByText("Chill room (copy)").first()).toBeVisible();
+    await page.keyboard.press("Control+z");
+    await expect(page.locator(".react-flow__node-room")).toHaveCount(1);
+    await page.keyboard.press("Control+Shift+z");
+    await expect(page.locator(".react-flow__node-room")).toHaveCount(2);
+    await saved(page);
+    const m = await (await page.request.get(`/api/v1/workspaces/${WS}/facilities/${id}/model`)).json();
+    expect(m.doc.rooms.map((r: { name: string }) => r.name)).toEqual(["Chill room", "Chill room (copy)"]);
+  });
+});
+
 test.describe("viewer on the canvas", () => {
   test.use({ storageState: stateOf("viewer") });
 

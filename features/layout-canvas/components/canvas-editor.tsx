@@ -184,7 +184,16 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
 
   const onNodesChange = useCallback((changes: NodeChange<CanvasNode>[]) => {
     setNodes((ns) => applyNodeChanges(changes.filter((c) => c.type !== "remove"), ns));
-    for (const c of changes) if (c.type === "select" && c.selected) setInspected(c.id);
+    let moved = false;
+    for (const c of changes) {
+      if (c.type === "select" && c.selected) setInspected(c.id);
+      // Arrow-key moves arrive as position changes outside a drag: keep and save them too.
+      if (c.type === "position" && c.position && !c.dragging) {
+        known.current[c.id] = c.position;
+        moved = true;
+      }
+    }
+    if (moved) setLayoutDirty((n) => n + 1);
   }, []);
   const onEdgesChange = useCallback((changes: EdgeChange[]) => setEdges((es) => applyEdgeChanges(changes.filter((c) => c.type !== "remove"), es)), []);
 
