@@ -347,6 +347,21 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
       setToast({ kind: "error", text: e instanceof ApiError ? e.message : "The site plan was not uploaded." });
     }
   };
+  const setPlanWidth = async (widthM: number) => {
+    if (!bg || widthM === bg.widthM) return;
+    if (!Number.isInteger(widthM) || widthM < 10 || widthM > 5000) {
+      setToast({ kind: "error", text: "Plan width must be a whole number of metres between 10 and 5000." });
+      return;
+    }
+    const ids = new Set(nodeIdsOf(docRef.current));
+    const positions = Object.fromEntries(Object.entries(known.current).filter(([k]) => ids.has(k)));
+    try {
+      const r = await api<{ layout: LayoutDto }>(`${base}/layout`, { method: "PUT", json: { positions, viewport: viewport.current, backgroundWidthM: widthM } });
+      setBg(r.layout.background);
+    } catch (e) {
+      setToast({ kind: "error", text: e instanceof Error ? e.message : "Plan width not saved." });
+    }
+  };
   const removeBg = async () => {
     const r = await api<{ layout: LayoutDto }>(`${base}/layout/background`, { method: "DELETE" });
     setBg(r.layout.background);
@@ -408,9 +423,26 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
               <input type="file" accept="image/png,image/jpeg,application/pdf" className="sr-only" onChange={(e) => e.target.files?.[0] && void upload(e.target.files[0])} />
             </label>
             {bg ? (
-              <button className="text-left text-muted hover:underline" onClick={() => void removeBg()}>
-                Remove site plan
-              </button>
+              <>
+                <label className="flex items-center gap-1 text-muted" htmlFor="plan-width">
+                  Plan width
+                  <input
+                    id="plan-width"
+                    type="number"
+                    min={10}
+                    max={5000}
+                    step={1}
+                    defaultValue={bg.widthM}
+                    className="w-16 rounded border border-line bg-surface px-1 text-right font-mono"
+                    onBlur={(e) => void setPlanWidth(Number(e.target.value))}
+                    onKeyDown={(e) => e.key === "Enter" && void setPlanWidth(Number((e.target as HTMLInputElement).value))}
+                  />
+                  m
+                </label>
+                <button className="text-left text-muted hover:underline" onClick={() => void removeBg()}>
+                  Remove site plan
+                </button>
+              </>
             ) : null}
           </div>
         </aside>
@@ -509,7 +541,7 @@ function Editor({ ws, facilityId, initial, layout, canEdit, role, unitSystem: s 
                 <img
                   src={`${base}/layout/background?v=${encodeURIComponent(bg.updatedAt)}`}
                   alt="Site plan"
-                  className="pointer-events-none absolute select-none opacity-35"
+                  className="pointer-events-none absolute max-w-none select-none opacity-35"
                   style={{ transform: "translate(-300px, -200px)", width: bg.widthM * 10 }}
                 />
               </ViewportPortal>
