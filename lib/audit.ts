@@ -8,6 +8,7 @@ export type AuditAction =
   | "auth.signout"
   | "auth.password_reset"
   | "member.invited"
+  | "member.invite_revoked"
   | "member.joined"
   | "member.role_changed"
   | "member.removed"

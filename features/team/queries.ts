@@ -124,3 +124,14 @@ export async function myWorkspaces(userId: string) {
     .where(eq(memberships.userId, userId))
     .orderBy(asc(workspaces.name));
 }
+
+/** Revokes a pending invitation of this workspace; used, revoked or unknown ones are not found. */
+export async function revokeInvite(workspaceId: string, inviteId: string) {
+  const [row] = await db
+    .update(invites)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(invites.workspaceId, workspaceId), eq(invites.id, inviteId), isNull(invites.acceptedAt), isNull(invites.revokedAt)))
+    .returning();
+  if (!row) throw new AppError("not_found", "No pending invitation with that id in this workspace.");
+  return row;
+}

@@ -16,6 +16,7 @@ import { waitForMailLink } from "./mail";
  *  archive facility       A      A        D          D        D
  *  list members           A      A        A          A        A
  *  invite                 A      D        D          D        D
+ *  revoke an invitation   A      D        D          D        D
  *  change a role          A      D        D          D        D
  *  remove a member        A      D        D          D        D
  *  read the audit log     A      D        D          D        D
@@ -30,6 +31,7 @@ const M: Record<string, Record<Role, Cell>> = {
   archiveFacility: { owner: "A", designer: "A", operations: "D", purchaser: "D", viewer: "D" },
   listMembers: { owner: "A", designer: "A", operations: "A", purchaser: "A", viewer: "A" },
   invite: { owner: "A", designer: "D", operations: "D", purchaser: "D", viewer: "D" },
+  revokeInvite: { owner: "A", designer: "D", operations: "D", purchaser: "D", viewer: "D" },
   changeRole: { owner: "A", designer: "D", operations: "D", purchaser: "D", viewer: "D" },
   removeMember: { owner: "A", designer: "D", operations: "D", purchaser: "D", viewer: "D" },
   readAudit: { owner: "A", designer: "D", operations: "D", purchaser: "D", viewer: "D" },
@@ -83,6 +85,10 @@ const ACTIONS: Record<keyof typeof M, (c: APIRequestContext, role: Role) => Prom
   },
   listMembers: async (c) => (await c.get(`${base}/members`)).status(),
   invite: async (c, role) => (await c.post(`${base}/invites`, { data: { email: `matrix-${role}-${Date.now()}@example.test`, role: "viewer" } })).status(),
+  revokeInvite: async (c, role) => {
+    const made = await (await ctx.owner.post(`${base}/invites`, { data: { email: `revoke-${role}-${Date.now()}@example.test`, role: "viewer" } })).json();
+    return (await c.delete(`${base}/invites/${made.invite.id}`)).status();
+  },
   changeRole: async (c) => (await c.patch(`${base}/members/${viewerId}`, { data: { role: "viewer" } })).status(),
   removeMember: async (c, role) => {
     const target = await newMember(ctx.owner, role);

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { memberships, sessions } from "@/db/schema";
-import { changeRole, removeMember } from "@/features/team/queries";
+import { changeRole, createInvite, findOpenInvite, removeMember, revokeInvite } from "@/features/team/queries";
 import { authorize } from "@/lib/authz";
 import { AppError } from "@/lib/errors";
 import { addMember, makeUser, makeWorkspace } from "../factories";
@@ -53,5 +53,16 @@ describe("workspace membership rules", () => {
     const u = await makeUser();
     await addMember(ws1.id, u.id, "owner");
     await expect(authorize(u.id, ws2.slug, "facility.read")).rejects.toMatchObject({ code: "not_found" });
+  });
+
+  it("a revoked invitation's link stops working, and it cannot be revoked twice", async () => {
+    const ws = await makeWorkspace();
+    const owner = await makeUser();
+    await addMember(ws.id, owner.id, "owner");
+    const { invite, token } = await createInvite(ws.id, owner.id, `inv-${Date.now()}@example.test`, "viewer");
+    expect((await findOpenInvite(token))?.invite.id).toBe(invite.id);
+    await revokeInvite(ws.id, invite.id);
+    expect(await findOpenInvite(token)).toBeNull();
+    await expect(revokeInvite(ws.id, invite.id)).rejects.toMatchObject({ code: "not_found" });
   });
 });

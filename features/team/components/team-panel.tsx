@@ -32,6 +32,11 @@ export function TeamPanel({ ws, canManage, myId }: { ws: string; canManage: bool
     onSuccess: () => { setMsg({ ok: true, text: "Role changed." }); refresh(); },
     onError: (e) => { fail(e); refresh(); },
   });
+  const revoke = useMutation({
+    mutationFn: (inviteId: string) => api(`/api/v1/workspaces/${ws}/invites/${inviteId}`, { method: "DELETE" }),
+    onSuccess: () => { setMsg({ ok: true, text: "Invitation revoked; its link no longer works." }); refresh(); },
+    onError: fail,
+  });
   const remove = useMutation({
     mutationFn: (userId: string) => api(`/api/v1/workspaces/${ws}/members/${userId}`, { method: "DELETE" }),
     onSuccess: () => { setMsg({ ok: true, text: "Member removed; their sessions ended." }); refresh(); },
@@ -103,7 +108,10 @@ export function TeamPanel({ ws, canManage, myId }: { ws: string; canManage: bool
               <h3 className="text-xs font-semibold text-muted">Pending invitations</h3>
               <ul className="text-sm">
                 {q.data.invites.map((i) => (
-                  <li key={i.id}>{i.email} — {i.role}, expires {new Date(i.expiresAt).toLocaleDateString("en-GB")}</li>
+                  <li key={i.id} className="flex items-center gap-2">
+                    {i.email} — {i.role}, expires {new Date(i.expiresAt).toLocaleDateString("en-GB")}
+                    <Button variant="ghost" onClick={() => revoke.mutate(i.id)} aria-label={`Revoke the invitation to ${i.email}`}>Revoke</Button>
+                  </li>
                 ))}
               </ul>
             </div>
