@@ -121,6 +121,7 @@ export function openApiDocument(serverUrl: string) {
         delete: { summary: "Remove a member (owner); ends their sessions", parameters: [ws, { name: "userId", in: "path", required: true, schema: { type: "string", format: "uuid" } }], responses: { "200": ok("Removed"), "409": ok("Last owner"), ...errors } },
       },
       "/api/v1/workspaces/{ws}/invites": { post: { summary: "Invite by e-mail (owner)", parameters: [ws], requestBody: body("Invite"), responses: { "201": ok("Invited"), ...errors } } },
+      "/api/v1/workspaces/{ws}/invites/{inviteId}": { delete: { summary: "Revoke a pending invitation (owner)", parameters: [ws, { name: "inviteId", in: "path", required: true, schema: { type: "string", format: "uuid" } }], responses: { "200": ok("Revoked"), ...errors } } },
       "/api/v1/workspaces/{ws}/audit": { get: { summary: "Audit log (owner)", parameters: [ws], responses: { "200": ok("Entries"), ...errors } } },
       "/api/v1/invites/accept": { post: { summary: "Accept an invitation", security: [], requestBody: body("AcceptInvite"), responses: { "200": ok("Joined"), ...errors } } },
       "/api/v1/auth/link": { post: { summary: "E-mail a one-time sign-in link", security: [], requestBody: body("EmailOnly"), responses: { "200": ok("Sent if the account exists") } } },
