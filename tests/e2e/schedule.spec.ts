@@ -14,7 +14,7 @@ test.describe("purchaser", () => {
 
   test("exports the schedule; the download is a valid .xlsx with every sheet", async ({ page }) => {
     await page.goto(`/w/${WS}/f/${facilityId}/schedule`);
-    await expect(page.getByRole("heading", { name: "Equipment schedule" })).toBeVisible();
+    await expect(page.getByRole("heading", { name: "Equipment schedule", exact: true })).toBeVisible();
     await expect(page.locator("tr[data-tag='EV-1']")).toBeVisible();
     const download = page.waitForEvent("download");
     await page.getByRole("button", { name: "Export to Excel (.xlsx)" }).click();

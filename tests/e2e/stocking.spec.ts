@@ -40,7 +40,7 @@ test.describe("viewer", () => {
 
   test("reads stocking checks but cannot create one", async ({ page }) => {
     await page.goto(`/w/${WS}/f/${facilityId}/stocking`);
-    await expect(page.getByRole("heading", { name: "Stocking checks" })).toBeVisible();
+    await expect(page.getByRole("heading", { name: "Stocking checks", exact: true })).toBeVisible();
     await expect(page.getByRole("button", { name: "New check" })).toHaveCount(0);
     const r = await page.request.post(`/api/v1/workspaces/${WS}/facilities/${facilityId}/scenarios`, {
       data: { name: "not allowed", changes: { rooms: [{ roomId: "apples", tonnesPerDay: 10 }] } },
