@@ -78,9 +78,17 @@ export const UNIT_LABELS: Record<UnitSystem, Record<string, string>> = {
 };
 
 const MINUS = "\u2212";
+// One formatter per precision: creating Intl formatters (or calling toLocaleString, which
+// does so each time) dominates when a canvas re-labels hundreds of figures per edit.
+const formatters = new Map<number, Intl.NumberFormat>();
 function num(v: number, digits: number): string {
   if (!Number.isFinite(v)) return "—";
-  const s = v.toLocaleString("en-GB", { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  let f = formatters.get(digits);
+  if (!f) {
+    f = new Intl.NumberFormat("en-GB", { minimumFractionDigits: digits, maximumFractionDigits: digits });
+    formatters.set(digits, f);
+  }
+  const s = f.format(v);
   return s.startsWith("-") ? MINUS + s.slice(1) : s;
 }
 
