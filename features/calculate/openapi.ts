@@ -115,6 +115,32 @@ export function openApiDocument(serverUrl: string) {
       "/api/v1/workspaces/{ws}/facilities/{id}/revisions": { get: { summary: "Revision history", parameters: [ws, id], responses: { "200": ok("Revisions"), ...errors } } },
       "/api/v1/workspaces/{ws}/facilities/{id}/revisions/{n}/restore": { post: { summary: "Restore a revision as a new version (owner, designer)", parameters: [ws, id, { name: "n", in: "path", required: true, schema: { type: "integer" } }], responses: { "200": ok("Saved"), ...errors } } },
       "/api/v1/workspaces/{ws}/facilities/{id}/revisions/{n}/issue": { post: { summary: "Issue (and lock) a revision (owner, designer)", parameters: [ws, id, { name: "n", in: "path", required: true, schema: { type: "integer" } }], requestBody: body("IssueRevision"), responses: { "200": ok("Issued"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/layout": {
+        get: { summary: "Canvas node positions and viewport", parameters: [ws, id], responses: { "200": ok("Layout"), ...errors } },
+        put: { summary: "Save positions and viewport (owner, designer); not an engineering revision", parameters: [ws, id], responses: { "200": ok("Saved"), ...errors } },
+      },
+      "/api/v1/workspaces/{ws}/facilities/{id}/layout/background": {
+        get: { summary: "The site-plan image", parameters: [ws, id], responses: { "200": { description: "PNG or JPEG" }, ...errors } },
+        put: { summary: "Upload a site plan (PNG/JPEG, at most 5 MB, checked by content; owner, designer)", parameters: [ws, id], responses: { "200": ok("Stored"), ...errors } },
+        delete: { summary: "Remove the site plan (owner, designer)", parameters: [ws, id], responses: { "200": ok("Removed"), ...errors } },
+      },
+      "/api/v1/workspaces/{ws}/facilities/{id}/installed": {
+        get: { summary: "The installed plant the stocking checks compare with", parameters: [ws, id], responses: { "200": ok("Installed plant"), ...errors } },
+        put: { summary: "Record the installed plant as a new model version (owner, designer)", parameters: [ws, id], responses: { "200": ok("Saved"), ...errors } },
+      },
+      "/api/v1/workspaces/{ws}/facilities/{id}/scenarios": {
+        get: { summary: "Stocking checks, with author and time", parameters: [ws, id], responses: { "200": ok("Scenarios"), ...errors } },
+        post: { summary: "Run and save a stocking check (owner, designer, operations)", parameters: [ws, id], responses: { "201": ok("Scenario with verdict"), ...errors } },
+      },
+      "/api/v1/workspaces/{ws}/facilities/{id}/scenarios/{sid}": { get: { summary: "A stocking check", parameters: [ws, id, { name: "sid", in: "path", required: true, schema: { type: "string", format: "uuid" } }], responses: { "200": ok("Scenario"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/scenarios/{sid}/email": { post: { summary: "E-mail a summary with a link (owner, designer, operations)", parameters: [ws, id, { name: "sid", in: "path", required: true, schema: { type: "string", format: "uuid" } }], responses: { "200": ok("Sent"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/scenarios/{sid}/accept": { post: { summary: "Accept a stocking check (owner, designer)", parameters: [ws, id, { name: "sid", in: "path", required: true, schema: { type: "string", format: "uuid" } }], responses: { "200": ok("Accepted"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/scenarios/{sid}/apply": { post: { summary: "Apply an accepted stocking check to the model as a new revision (owner, designer)", parameters: [ws, id, { name: "sid", in: "path", required: true, schema: { type: "string", format: "uuid" } }], responses: { "200": ok("Applied"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/schedule": { get: { summary: "Equipment schedule with marks for what changed since the last export", parameters: [ws, id], responses: { "200": ok("Schedule"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/export.xlsx": { get: { summary: "Excel workbook: schedule, room loads, circuits, state points, design basis (owner, designer, purchaser); recorded", parameters: [ws, id], responses: { "200": { description: "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet" }, ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/export.csv": { get: { summary: "The schedule as CSV (owner, designer, purchaser); recorded", parameters: [ws, id], responses: { "200": { description: "text/csv" }, ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/import/rooms": { post: { summary: "Import a room list from XLSX/CSV: preview, then all-or-nothing commit (owner, designer)", parameters: [ws, id], responses: { "200": ok("Preview or committed"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/import/stocking": { post: { summary: "Import a stocking plan from XLSX/CSV into one stocking check (owner, designer, operations)", parameters: [ws, id], responses: { "200": ok("Preview or committed"), ...errors } } },
       "/api/v1/workspaces/{ws}/members": { get: { summary: "Members (and, for owners, pending invites)", parameters: [ws], responses: { "200": ok("Members"), ...errors } } },
       "/api/v1/workspaces/{ws}/members/{userId}": {
         patch: { summary: "Change a role (owner); the last owner cannot be demoted", parameters: [ws, { name: "userId", in: "path", required: true, schema: { type: "string", format: "uuid" } }], requestBody: body("ChangeRole"), responses: { "200": ok("Changed"), "409": ok("Last owner"), ...errors } },
