@@ -19,14 +19,18 @@ test.describe("accessibility of the facility views", () => {
     expect(await axe(page, "#canvas-editor")).toEqual([]);
     await page.getByRole("button", { name: "Outline" }).click();
     expect(await axe(page, "#canvas-editor")).toEqual([]);
+    // wait for each view itself, not a table the previous view still shows
     await page.getByRole("link", { name: "Heat ledger" }).click();
-    await expect(page.getByRole("table").first()).toBeVisible();
+    await expect(page).toHaveURL(/\/ledger$/);
+    await expect(page.getByRole("region", { name: "Totals" })).toBeVisible();
     expect(await axe(page, "main")).toEqual([]);
     await page.getByRole("link", { name: "Circuits" }).click();
-    await expect(page.locator("article").first()).toBeVisible();
+    await expect(page).toHaveURL(/\/circuits$/);
+    await expect(page.locator("main article").first()).toBeVisible();
     expect(await axe(page, "main")).toEqual([]);
     await page.getByRole("link", { name: "Revisions" }).click();
-    await expect(page.getByRole("table")).toBeVisible();
+    await expect(page).toHaveURL(/\/revisions$/);
+    await expect(page.locator("main").getByRole("table")).toBeVisible();
     expect(await axe(page, "main")).toEqual([]);
   });
 });
