@@ -10,7 +10,7 @@ import {
   LoadInputError,
   computeRoomLoad,
   contextFromParsed,
-  ledgerFromContext,
+  ledgerFromResults,
   ledgerInputSchema,
   type LedgerContext,
   type LedgerInput,
@@ -154,37 +154,6 @@ function solveRoom(room: RoomInput, index: number, evs: EvaporatorInput[], lctx:
   return { result: withFeedback(base, roomFeedback(sized)), sized, fixedPoint: { roomId: room.id, ...fp } };
 }
 
-function aggregate(lctx: LedgerContext, results: RoomLoadResult[]): LedgerResult {
-  // The ledger's own statements, site block and version, with the totals summed here so that
-  // rooms solved by the plant loop are not computed a second time.
-  const shell = ledgerFromContext(lctx, []);
-  const hourly = new Array<number>(24).fill(0);
-  const hourlyWithSF = new Array<number>(24).fill(0);
-  const t = shell.totals;
-  for (const r of results) {
-    t.totalEnergyKWhPerDay += r.totalEnergyKWhPerDay;
-    t.averageLoadW += r.averageLoadW;
-    t.requiredCapacityW += r.requiredCapacityW;
-    t.sensibleW += r.sensibleW;
-    t.latentW += r.latentW;
-    for (let h = 0; h < 24; h++) {
-      hourly[h] += r.hourly[h];
-      hourlyWithSF[h] += r.hourly[h] * (1 + r.safetyFactor);
-    }
-  }
-  let peakHour = 0;
-  let peakSF = 0;
-  for (let h = 0; h < 24; h++) {
-    if (hourly[h] > hourly[peakHour]) peakHour = h;
-    if (hourlyWithSF[h] > peakSF) peakSF = hourlyWithSF[h];
-  }
-  t.hourly = hourly;
-  t.peakHour = peakHour;
-  t.peakHourW = hourly[peakHour];
-  t.requiredPeakCapacityW = peakSF;
-  return { ...shell, rooms: results, totals: t };
-}
-
 function evaporatorsByRoom(plant: PlantInput): Map<string, EvaporatorInput[]> {
   const m = new Map<string, EvaporatorInput[]>();
   for (const e of plant.evaporators) {
@@ -226,7 +195,7 @@ export function computeFacility(model: FacilityModel, opts: ComputeOptions = {})
   const plant = computePlant(sized, circuitContext(model, getFluid));
   plant.warnings.unshift(...roomWarnings(model, results, byRoom));
   return {
-    ledger: aggregate(lctx, results),
+    ledger: ledgerFromResults(lctx, results),
     plant,
     fixedPoint: fixedPointSummary(model, solutions),
     engineVersion: PLANT_ENGINE_VERSION,
@@ -427,7 +396,7 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
       const plant = assemblePlant(sized, circuits, warnings, model.plant);
       plant.warnings.unshift(...roomWarnings(model, results, byRoom));
       return {
-        ledger: aggregate(lctx, results),
+        ledger: ledgerFromResults(lctx, results),
         plant,
         fixedPoint: fixedPointSummary(model, solutions),
         engineVersion: PLANT_ENGINE_VERSION,

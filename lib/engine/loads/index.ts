@@ -38,6 +38,7 @@ export {
   buildLedgerContext,
   contextFromParsed,
   ledgerFromContext,
+  ledgerFromResults,
   parseLedgerInput,
   ENGINE_VERSION,
 } from "./ledger";

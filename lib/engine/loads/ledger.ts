@@ -998,7 +998,17 @@ export function computeLedger(raw: LedgerInputRaw): LedgerResult {
 
 /** As {@link computeLedger} for a context already built (e.g. by a plant loop). */
 export function ledgerFromContext(ctx: LedgerContext, rooms: ReadonlyArray<RoomInput> = ctx.input.rooms): LedgerResult {
-  const results = rooms.map((r) => computeRoomLoad(r, ctx));
+  return ledgerFromResults(
+    ctx,
+    rooms.map((r) => computeRoomLoad(r, ctx)),
+  );
+}
+
+/**
+ * The facility ledger from room results already computed (e.g. by the plant's fan/defrost
+ * loop): the sums, the coincident hourly profile and peak, the stated options and site.
+ */
+export function ledgerFromResults(ctx: LedgerContext, results: RoomLoadResult[]): LedgerResult {
   const hourly = new Array<number>(24).fill(0);
   const hourlyWithSF = new Array<number>(24).fill(0);
   let totalEnergyKWhPerDay = 0;
