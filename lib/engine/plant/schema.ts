@@ -6,22 +6,9 @@
  * overridden per item.
  */
 import { z } from "zod";
-import type { FluidId } from "../thermo/types";
 
-const FLUID_IDS = [
-  "R717",
-  "R744",
-  "R134a",
-  "R404A",
-  "R507A",
-  "R448A",
-  "R449A",
-  "R290",
-  "R1234zeE",
-  "R513A",
-] as const satisfies readonly FluidId[];
-
-export const fluidIdSchema = z.enum(FLUID_IDS);
+export { fluidIdSchema } from "../thermo/schema";
+import { fluidIdSchema } from "../thermo/schema";
 
 /** A number in [lo, hi] whose error message states the allowed range (as the ledger's schemas do). */
 const range = (lo: number, hi: number, unit = "") => {

@@ -21,23 +21,11 @@ import type { Fluid, FluidId, FluidMeta } from "./types";
 export * from "./types";
 export { GWP_SOURCE } from "./meta";
 export { phChart, type PhChart, type PhChartOptions, type PhPoint } from "./chart";
-export { evaluateQuery, fluidIdSchema, stateQuerySchema, type StateAnswer, type StateQuery } from "./schema";
+export { evaluateQuery, FLUID_IDS, fluidIdSchema, stateQuerySchema, type StateAnswer, type StateQuery } from "./schema";
+import { FLUID_IDS } from "./schema";
 
 const PURE_IDS = Object.keys(pureFluidMeta) as PureFluidId[];
 
-/** Every fluid id the engine knows, pure fluids first. */
-export const FLUID_IDS: readonly FluidId[] = [
-  "R717",
-  "R744",
-  "R134a",
-  "R290",
-  "R1234zeE",
-  "R404A",
-  "R507A",
-  "R448A",
-  "R449A",
-  "R513A",
-];
 
 const BLEND_IDS: readonly FluidId[] = ["R404A", "R507A", "R448A", "R449A", "R513A"];
 

@@ -8,7 +8,8 @@
 import { z } from "zod";
 import type { Fluid, FluidId, SaturationState, State } from "./types";
 
-const FLUID_IDS = [
+/** Every fluid id the engine knows, pure fluids first: the one list the schemas and registry use. */
+export const FLUID_IDS = [
   "R717",
   "R744",
   "R134a",
