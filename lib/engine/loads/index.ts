@@ -39,6 +39,7 @@ export {
   contextFromParsed,
   ledgerFromContext,
   ledgerFromResults,
+  withEvaporatorHeat,
   parseLedgerInput,
   ENGINE_VERSION,
 } from "./ledger";

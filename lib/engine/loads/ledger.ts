@@ -895,14 +895,30 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
       "q = P·h/24",
     );
   }
-  const fans = room.evaporatorFans;
+  appendEvaporatorHeat(components, hourly, room.evaporatorFans, room.defrost, at);
+  return finishRoom(
+    { roomId: room.id, roomName: room.name, safetyFactor: room.safetyFactor, runHoursPerDay: room.runHoursPerDay, pullDownBasis: opts.pullDownBasis, colderNeighbour: opts.colderNeighbour },
+    components,
+    hourly,
+    heatOutflowW,
+    at,
+  );
+}
+
+/** The evaporator fan and defrost lines (the two inputs the plant's fixed point replaces). */
+function appendEvaporatorHeat(
+  components: LoadComponent[],
+  hourly: number[],
+  fans: RoomInput["evaporatorFans"],
+  d: RoomInput["defrost"],
+  at: string,
+): void {
   requireFinite(fans.powerW, `${at}.evaporatorFans.powerW`, "evaporator fan power");
   requireFinite(fans.hoursPerDay, `${at}.evaporatorFans.hoursPerDay`, "evaporator fan hours");
   if (fans.hoursPerDay > 24) fail(`${at}.evaporatorFans.hoursPerDay`, "must be between 0 and 24 h/day");
   if (fans.powerW > 0) {
     scheduled(components, hourly, "evaporatorFans", "evaporator fans", fans.powerW, fans.hoursPerDay, undefined, "Evaporator fan motor heat (all input inside the room)", HANDBOOK, { powerW: fans.powerW }, "q = P·h/24");
   }
-  const d = room.defrost;
   requireFinite(d.heaterW, `${at}.defrost.heaterW`, "defrost heater power");
   requireFinite(d.minutesPerDefrost, `${at}.defrost.minutesPerDefrost`, "defrost minutes");
   requireFinite(d.defrostsPerDay, `${at}.defrost.defrostsPerDay`, "defrosts per day");
@@ -919,8 +935,19 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     );
     spreadPeriodic(hourly, defrostWh, 0, 24);
   }
+}
 
-  // Sums ------------------------------------------------------------------------------------------
+interface RoomHead {
+  roomId: string;
+  roomName: string;
+  safetyFactor: number;
+  runHoursPerDay: number;
+  pullDownBasis: LedgerOptions["pullDownBasis"];
+  colderNeighbour: LedgerOptions["colderNeighbour"];
+}
+
+/** The room's sums, safety factor, run time and design capacity from its components. */
+function finishRoom(head: RoomHead, components: LoadComponent[], hourly: number[], heatOutflowW: number, at: string): RoomLoadResult {
   let averageLoadW = 0;
   let latentW = 0;
   for (const c of components) {
@@ -930,18 +957,18 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   const sensibleW = averageLoadW - latentW;
   let peakHour = 0;
   for (let h = 1; h < 24; h++) if (hourly[h] > hourly[peakHour]) peakHour = h;
-  const sf = room.safetyFactor;
+  const sf = head.safetyFactor;
   const totalEnergyKWhPerDay = (averageLoadW * 24) / 1000;
-  const requiredCapacityW = (averageLoadW * 24 * (1 + sf)) / room.runHoursPerDay;
+  const requiredCapacityW = (averageLoadW * 24 * (1 + sf)) / head.runHoursPerDay;
   const requiredPeakCapacityW = hourly[peakHour] * (1 + sf);
   const result: RoomLoadResult = {
-    roomId: room.id,
-    roomName: room.name,
+    roomId: head.roomId,
+    roomName: head.roomName,
     components,
     totalEnergyKWhPerDay,
     averageLoadW,
     safetyFactor: sf,
-    runHoursPerDay: room.runHoursPerDay,
+    runHoursPerDay: head.runHoursPerDay,
     requiredCapacityW,
     sensibleW,
     latentW,
@@ -958,11 +985,11 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
       inputs: {
         totalEnergyKWhPerDay,
         safetyFactor: sf,
-        runHoursPerDay: room.runHoursPerDay,
+        runHoursPerDay: head.runHoursPerDay,
         peakHour,
         peakHourW: hourly[peakHour],
-        pullDownBasis: opts.pullDownBasis,
-        colderNeighbour: opts.colderNeighbour,
+        pullDownBasis: head.pullDownBasis,
+        colderNeighbour: head.colderNeighbour,
       },
       formula: "Q_req = E_24h·(1 + SF)/t_run; Q_peak = max_h q_h·(1 + SF); design = max(Q_req, Q_peak)",
     },
@@ -971,6 +998,40 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
     if (!Number.isFinite(result[key])) fail(at, `${key} came out non-finite: check the room's inputs`);
   }
   return result;
+}
+
+/**
+ * A room ledger computed with no evaporator fan or defrost heat, plus those two lines: the
+ * same result as {@link computeRoomLoad} with them in the room's fields. The plant's
+ * fan/defrost fixed point computes the rest of the room once and adds these per trial.
+ */
+export function withEvaporatorHeat(
+  base: RoomLoadResult,
+  fans: RoomInput["evaporatorFans"],
+  defrost: RoomInput["defrost"],
+  at = `rooms[${base.roomId}]`,
+): RoomLoadResult {
+  if (base.components.some((c) => c.kind === "evaporatorFans" || c.kind === "defrost")) {
+    throw new Error(`withEvaporatorHeat needs room ${base.roomId} computed without fan and defrost heat`);
+  }
+  const components = base.components.slice();
+  const hourly = base.hourly.slice();
+  appendEvaporatorHeat(components, hourly, fans, defrost, at);
+  const t = base.capacityTrace.inputs;
+  return finishRoom(
+    {
+      roomId: base.roomId,
+      roomName: base.roomName,
+      safetyFactor: base.safetyFactor,
+      runHoursPerDay: base.runHoursPerDay,
+      pullDownBasis: t.pullDownBasis as LedgerOptions["pullDownBasis"],
+      colderNeighbour: t.colderNeighbour as LedgerOptions["colderNeighbour"],
+    },
+    components,
+    hourly,
+    base.heatOutflowW,
+    at,
+  );
 }
 
 function statements(o: LedgerOptions): string[] {
