@@ -50,6 +50,8 @@ test.describe("designer on the canvas", () => {
     await page.getByLabel("Set point").fill("-20");
     await expect(required).not.toHaveText(before!);
     await saved(page);
+    // the facility header follows the autosaved version (it was created at version 1)
+    await expect(page.getByText(/^version [2-9]\d*$/)).toBeVisible();
 
     await page.getByRole("button", { name: /^\+ Door/ }).click();
     await page.getByLabel("Opens from").selectOption({ label: "Room 1" });

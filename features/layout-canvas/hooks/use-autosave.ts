@@ -2,6 +2,7 @@
 import { useCallback, useEffect, useRef, useState } from "react";
 import { api, ApiError } from "@/lib/api-client";
 import type { CanvasDoc } from "../schema";
+import { FACILITY_VERSION_EVENT } from "@/features/facilities/components/facility-version";
 
 export type SaveStatus = "saved" | "pending" | "saving" | "blocked" | "conflict" | "error" | "readonly";
 
@@ -71,6 +72,8 @@ export function useAutosave(opts: {
       // Rebased while more was typed: keep the old base, so the next save is merged again.
       const more = latest.current !== base.current.doc;
       setState({ status: more ? "pending" : "saved", version: r.version, message: r.rebased ? "Merged with changes saved by someone else." : null, conflict: null });
+      // The facility header shows the current version; tell it (it is rendered by the server).
+      window.dispatchEvent(new CustomEvent(FACILITY_VERSION_EVENT, { detail: { url, version: r.version } }));
     } catch (e) {
       if (e instanceof ApiError && e.status === 409) {
         conflicted = true;

@@ -6,6 +6,7 @@ import { Forbidden } from "@/components/layout/forbidden";
 import { NavTabs } from "@/components/layout/nav-tabs";
 import { getFacilityRow } from "@/features/facilities/queries";
 import { FACILITY_TABS } from "@/features/facilities/components/facility-tabs";
+import { FacilityVersion } from "@/features/facilities/components/facility-version";
 
 export default async function FacilityLayout({ children, params }: LayoutProps<"/w/[ws]/f/[id]">) {
   const { ws, id } = await params;
@@ -25,7 +26,7 @@ export default async function FacilityLayout({ children, params }: LayoutProps<"
         </Link>
         <h2 className="text-base font-semibold">{f.name}</h2>
         {f.archivedAt ? <span className="rounded bg-surface-3 px-1.5 text-xs text-muted">archived</span> : null}
-        <span className="text-xs text-muted">version {f.version}</span>
+        <FacilityVersion facilityId={f.id} initial={f.version} />
       </div>
       <NavTabs label="Facility views" tabs={FACILITY_TABS.map((t) => ({ href: `${base}/${t.slug}`, label: t.label }))} />
       <div className="flex flex-1 flex-col">{children}</div>
