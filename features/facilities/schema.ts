@@ -1,5 +1,17 @@
 import { z } from "zod";
 
+/**
+ * The allowed ranges of the site conditions, SI; the form states them in the user's units
+ * before sending, the schema enforces them on the server.
+ */
+export const SITE_RANGES = {
+  designDryBulbC: { label: "Design dry bulb", min: -50, max: 55, kind: "temp" },
+  coincidentWetBulbC: { label: "Coincident wet bulb", min: -50, max: 45, kind: "temp" },
+  designRhPct: { label: "Design relative humidity", min: 1, max: 100, kind: "percent" },
+  groundTempC: { label: "Ground temperature", min: -30, max: 40, kind: "temp" },
+  elevationM: { label: "Elevation", min: -450, max: 5000, kind: "length" },
+} as const;
+
 const num = (field: string, min: number, max: number, unit: string) =>
   z
     .number({ error: `${field} must be a number (${min} to ${max} ${unit})` })
@@ -12,11 +24,11 @@ const num = (field: string, min: number, max: number, unit: string) =>
  */
 export const siteConditionsSchema = z
   .object({
-    designDryBulbC: num("Design dry bulb", -50, 55, "°C"),
-    coincidentWetBulbC: num("Coincident wet bulb", -50, 45, "°C").nullish(),
-    designRhPct: num("Design relative humidity", 1, 100, "%").nullish(),
-    groundTempC: num("Ground temperature", -30, 40, "°C"),
-    elevationM: num("Elevation", -450, 5000, "m"),
+    designDryBulbC: num(SITE_RANGES.designDryBulbC.label, SITE_RANGES.designDryBulbC.min, SITE_RANGES.designDryBulbC.max, "°C"),
+    coincidentWetBulbC: num(SITE_RANGES.coincidentWetBulbC.label, SITE_RANGES.coincidentWetBulbC.min, SITE_RANGES.coincidentWetBulbC.max, "°C").nullish(),
+    designRhPct: num(SITE_RANGES.designRhPct.label, SITE_RANGES.designRhPct.min, SITE_RANGES.designRhPct.max, "%").nullish(),
+    groundTempC: num(SITE_RANGES.groundTempC.label, SITE_RANGES.groundTempC.min, SITE_RANGES.groundTempC.max, "°C"),
+    elevationM: num(SITE_RANGES.elevationM.label, SITE_RANGES.elevationM.min, SITE_RANGES.elevationM.max, "m"),
   })
   .superRefine((s, ctx) => {
     const hasWb = s.coincidentWetBulbC !== null && s.coincidentWetBulbC !== undefined;

@@ -182,7 +182,7 @@ test("units and theme are a per-user preference: IP shows °F and ft, dark theme
   const owner = await browser.newContext({ storageState: stateOf("owner") });
   const op = await owner.newPage();
   const email = `ip-user-${Date.now()}@example.test`;
-  expect((await op.request.post(`/api/v1/workspaces/${WS}/invites`, { data: { email, role: "viewer" } })).status()).toBe(201);
+  expect((await op.request.post(`/api/v1/workspaces/${WS}/invites`, { data: { email, role: "designer" } })).status()).toBe(201);
   const token = new URL(await waitForMailLink(email, "invited you")).searchParams.get("token");
   expect((await op.request.post("/api/v1/invites/accept", { data: { token, name: "Imperial Ivy", password: "imperial-units-1" } })).status()).toBe(200);
   await owner.close();
@@ -193,7 +193,7 @@ test("units and theme are a per-user preference: IP shows °F and ft, dark theme
   await page.getByLabel("E-mail").fill(email);
   await page.getByLabel("Password").fill("imperial-units-1");
   await page.getByRole("button", { name: "Sign in" }).click();
-  await expect(page.getByText("your role: viewer")).toBeVisible();
+  await expect(page.getByText("your role: designer")).toBeVisible();
   await page.goto("/account");
   await page.getByLabel(/IP — °F/).check();
   await page.getByLabel("dark").check();
@@ -206,6 +206,21 @@ test("units and theme are a per-user preference: IP shows °F and ft, dark theme
   await expect(row).toContainText("89.6 °F");
   await expect(row).toContainText("492.13 ft");
   await expect(page.locator("html")).toHaveClass(/dark/);
-  await shot(page, "viewer-ip-dark");
+  await shot(page, "ip-dark-facilities");
+  // the form states the allowed range in the user's units: −50…55 °C = −58…131 °F
+  await page.getByRole("button", { name: "New facility" }).click();
+  await page.getByLabel("Facility name").fill("Imperial check");
+  await page.getByLabel("Design dry bulb").fill("140");
+  await page.getByLabel("Coincident wet bulb").fill("70");
+  await page.getByLabel("Ground temperature").fill("50");
+  await page.getByLabel("Elevation").fill("300");
+  await page.getByRole("button", { name: "Create facility" }).click();
+  await expect(page.getByText("Design dry bulb must be between -58 and 131 °F")).toBeVisible();
+  await page.getByLabel("Design dry bulb").fill("95");
+  await page.getByRole("button", { name: "Create facility" }).click();
+  const created = page.getByRole("row", { name: /Imperial check/ });
+  // 95 °F = 35 °C stored, shown back as 95.0 °F; 300 ft = 91.44 m shown back as 300.00 ft
+  await expect(created).toContainText("95.0 °F");
+  await expect(created).toContainText("300.00 ft");
   await c.close();
 });

@@ -3,7 +3,7 @@ import { useState } from "react";
 import { Field } from "@/components/form/field";
 import { Button } from "@/components/ui/button";
 import { convert, UNIT_LABELS, type UnitSystem } from "@/lib/units";
-import type { SiteConditions } from "../schema";
+import { SITE_RANGES, type SiteConditions } from "../schema";
 
 type Humidity = "wetBulb" | "rh";
 
@@ -45,18 +45,43 @@ export function SiteConditionsForm({
   const set = (k: keyof typeof v) => (e: React.ChangeEvent<HTMLInputElement>) => setV({ ...v, [k]: e.target.value });
   const n = (x: string) => (x.trim() === "" ? Number.NaN : Number(x.replace(",", ".")));
 
+  const [localErrors, setLocalErrors] = useState<Record<string, string>>({});
+
+  /**
+   * For IP users the allowed ranges are checked here first and stated in °F / ft (the server
+   * checks the same ranges in SI, and names them in SI).
+   */
+  function rangeErrors(values: Record<string, number | null>): Record<string, string> {
+    const out: Record<string, string> = {};
+    if (s === "SI") return out;
+    for (const [key, r] of Object.entries(SITE_RANGES)) {
+      const v = values[key];
+      if (v === null || v === undefined || Number.isNaN(v)) continue;
+      if (v < r.min || v > r.max) {
+        const show = (x: number) =>
+          r.kind === "temp" ? convert.tempToDisplay(x, s) : r.kind === "length" ? convert.lengthToDisplay(x, s) : x;
+        const unit = r.kind === "temp" ? L.temp : r.kind === "length" ? L.length : "%";
+        out[key] = `${r.label} must be between ${Math.round(show(r.min) * 10) / 10} and ${Math.round(show(r.max) * 10) / 10} ${unit}`;
+      }
+    }
+    return out;
+  }
+
   function submit(e: React.FormEvent) {
     e.preventDefault();
     const t = (x: string) => (x.trim() === "" ? null : convert.tempFromDisplay(n(x), s));
-    onSubmit({
+    const values = {
       designDryBulbC: t(v.designDryBulbC),
       coincidentWetBulbC: humidity === "wetBulb" ? t(v.coincidentWetBulbC) : null,
       designRhPct: humidity === "rh" ? (v.designRhPct.trim() === "" ? null : n(v.designRhPct)) : null,
       groundTempC: t(v.groundTempC),
       elevationM: v.elevationM.trim() === "" ? null : convert.lengthFromDisplay(n(v.elevationM), s),
-    });
+    };
+    const local = rangeErrors(values);
+    setLocalErrors(local);
+    if (Object.keys(local).length === 0) onSubmit(values);
   }
-  const err = (k: string) => errors[`site.${k}`] ?? errors[k];
+  const err = (k: string) => localErrors[k] ?? errors[`site.${k}`] ?? errors[k];
 
   return (
     <form onSubmit={submit} className="flex flex-col gap-4" aria-label="Site conditions">
