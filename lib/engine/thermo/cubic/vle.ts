@@ -107,20 +107,7 @@ export function solveFixedBeta(
   }
   const liquid = newPhaseEval();
   const vapour = newPhaseEval();
-  const setCompositions = () => {
-    let sx = 0;
-    let sy = 0;
-    for (let i = 0; i < n; i++) {
-      x[i] = z[i] / (1 + beta * (K[i] - 1));
-      y[i] = K[i] * x[i];
-      sx += x[i];
-      sy += y[i];
-    }
-    for (let i = 0; i < n; i++) {
-      x[i] /= sx;
-      y[i] /= sy;
-    }
-  };
+  const setCompositions = () => phaseCompositions(z, K, beta, x, y);
   setCompositions();
   for (let it = 0; it < MAX_ITER; it++) {
     mix.evaluate(tK, pPa, x, LIQUID_ROOT, true, liquid);
@@ -183,18 +170,7 @@ export function flashPT(mix: PengRobinsonMixture, z: ArrayLike<number>, pPa: num
   const vapour = newPhaseEval();
   for (let it = 0; it < MAX_ITER; it++) {
     beta = solveRachfordRice(z, K, beta);
-    let sx = 0;
-    let sy = 0;
-    for (let i = 0; i < n; i++) {
-      x[i] = z[i] / (1 + beta * (K[i] - 1));
-      y[i] = K[i] * x[i];
-      sx += x[i];
-      sy += y[i];
-    }
-    for (let i = 0; i < n; i++) {
-      x[i] /= sx;
-      y[i] /= sy;
-    }
+    phaseCompositions(z, K, beta, x, y);
     mix.evaluate(tK, pPa, x, LIQUID_ROOT, true, liquid);
     lnPhiL.set(mix.lnPhi);
     mix.evaluate(tK, pPa, y, VAPOUR_ROOT, true, vapour);
@@ -251,4 +227,25 @@ export function twoPhaseMass(sol: TwoPhaseSolution): { hJkg: number; sJkgK: numb
     vM3kg: ((1 - b) * sol.liquid.vM3Mol + b * sol.vapour.vM3Mol) / m,
     quality: (b * mV) / m,
   };
+}
+
+/**
+ * Liquid and vapour compositions of a two-phase split at vapour fraction β with K-factors K
+ * (Rachford–Rice material balance x_i = z_i / (1 + β(K_i − 1)), y_i = K_i·x_i), normalised.
+ * Writes into x and y.
+ */
+function phaseCompositions(z: ArrayLike<number>, K: ArrayLike<number>, beta: number, x: number[] | Float64Array, y: number[] | Float64Array): void {
+  const n = z.length;
+  let sx = 0;
+  let sy = 0;
+  for (let i = 0; i < n; i++) {
+    x[i] = z[i] / (1 + beta * (K[i] - 1));
+    y[i] = K[i] * x[i];
+    sx += x[i];
+    sy += y[i];
+  }
+  for (let i = 0; i < n; i++) {
+    x[i] /= sx;
+    y[i] /= sy;
+  }
 }
