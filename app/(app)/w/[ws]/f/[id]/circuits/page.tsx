@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { pageAccess } from "@/lib/page-access";
 import { Forbidden } from "@/components/layout/forbidden";
+import { ResultsUnavailable } from "@/components/layout/results-unavailable";
 import { serverResults } from "@/features/ledger/queries";
 import { circuitCards } from "@/features/circuits/queries";
 import { CircuitsView } from "@/features/circuits";
@@ -12,20 +13,7 @@ export default async function CircuitsPage({ params }: { params: Promise<{ ws: s
   const a = await pageAccess(ws, "facility.read");
   if (!a.ok) return <Forbidden message={a.message} />;
   const r = await serverResults(a.access.workspace.id, id);
-  if (!r.ok)
-    return (
-      <main className="max-w-2xl p-4 text-sm">
-        <p role="alert" className="text-danger">
-          ⚠ The circuits cannot be computed for version {r.version}: {r.message}
-        </p>
-        <p className="mt-2">
-          <Link className="text-accent hover:underline" href={`/w/${ws}/f/${id}/layout`}>
-            Open the Layout
-          </Link>{" "}
-          to fix it.
-        </p>
-      </main>
-    );
+  if (!r.ok) return <ResultsUnavailable what="The circuits" version={r.version} message={r.message} layoutHref={`/w/${ws}/f/${id}/layout`} />;
   if (r.result.plant.circuits.length === 0)
     return (
       <main className="max-w-2xl p-4 text-sm">
