@@ -27,7 +27,7 @@ export default defineConfig({
     { name: "e2e", testMatch: /.*\.spec\.ts/, dependencies: ["setup"] },
   ],
   webServer: {
-    command: `node_modules/.bin/next start -p ${port}`,
+    command: `PORT=${port} node_modules/.bin/tsx scripts/serve.ts`,
     url: `${baseURL}/api/v1/health`,
     reuseExistingServer: false,
     timeout: 120_000,

@@ -9,6 +9,9 @@ export type ErrorCode =
   | "invalid_token"
   | "last_owner"
   | "calculation"
+  | "payload_too_large"
+  | "unsupported_media_type"
+  | "unavailable"
   | "internal";
 
 const STATUS: Record<ErrorCode, number> = {
@@ -21,6 +24,10 @@ const STATUS: Record<ErrorCode, number> = {
   invalid_token: 400,
   last_owner: 409,
   calculation: 422,
+  payload_too_large: 413,
+  unsupported_media_type: 415,
+  /** The database (or another service the request needs) is away; try again shortly. */
+  unavailable: 503,
   internal: 500,
 };
 

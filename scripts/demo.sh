@@ -26,4 +26,4 @@ node_modules/.bin/next build >"$RIMEPLAN_RUN_DIR/build.log" 2>&1 || { tail -40 "
 node_modules/.bin/tsx seeds/print-signins.ts "$APP_URL"
 # Not exec: the trap stops the fake SMTP server when the app stops (Ctrl-C).
 trap 'smtp_stop' EXIT INT TERM
-node_modules/.bin/next start -p "$PORT"
+node_modules/.bin/tsx scripts/serve.ts

@@ -40,12 +40,25 @@ done
 
 results="$RIMEPLAN_RUN_DIR/results"; rm -rf "$results"; mkdir -p "$results"
 status=0
+# For working on one part: TEST_SUITES="unit integration e2e" (default all three) picks suites,
+# TEST_FILTER passes file filters to vitest and Playwright. CI runs everything.
+SUITES=" ${TEST_SUITES:-unit integration e2e} "
+read -r -a FILTER <<<"${TEST_FILTER:-}"
 
-log "unit tests"
-node_modules/.bin/vitest run --project unit --reporter=default --reporter=json --outputFile.json="$results/unit.json" || status=1
+if [[ "$SUITES" == *" unit "* ]]; then
+  log "unit tests"
+  node_modules/.bin/vitest run --project unit --reporter=default --reporter=json --outputFile.json="$results/unit.json" "${FILTER[@]}" || status=1
+fi
 
-log "integration tests (PostgreSQL on 127.0.0.1:$PGPORT)"
-node_modules/.bin/vitest run --project integration --reporter=default --reporter=json --outputFile.json="$results/integration.json" || status=1
+if [[ "$SUITES" == *" integration "* ]]; then
+  log "integration tests (PostgreSQL on 127.0.0.1:$PGPORT)"
+  node_modules/.bin/vitest run --project integration --reporter=default --reporter=json --outputFile.json="$results/integration.json" "${FILTER[@]}" || status=1
+fi
+
+if [[ "$SUITES" != *" e2e "* ]]; then
+  node_modules/.bin/tsx scripts/test-summary.ts "$results"
+  exit $status
+fi
 
 log "browser tests: building the app"
 E2E_DB="rimeplan_t_e2e_$RUN_ID"
@@ -57,7 +70,7 @@ export AUTH_TRUST_HOST=true APP_URL="http://localhost:$TEST_PORT" RIMEPLAN_DEV_M
 export SIGNIN_MAX_ATTEMPTS=5
 if node_modules/.bin/next build >"$RIMEPLAN_RUN_DIR/build.log" 2>&1; then
   log "browser tests (chromium at /usr/bin/chromium)"
-  node_modules/.bin/playwright test 2>&1 | tee "$RIMEPLAN_RUN_DIR/e2e.log"
+  node_modules/.bin/playwright test "${FILTER[@]}" 2>&1 | tee "$RIMEPLAN_RUN_DIR/e2e.log"
   [ "${PIPESTATUS[0]}" = 0 ] || status=1
   [ -f "$RIMEPLAN_RUN_DIR/e2e-report.json" ] && cp "$RIMEPLAN_RUN_DIR/e2e-report.json" "$results/e2e.json"
 else

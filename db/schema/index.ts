@@ -2,3 +2,4 @@ export * from "./auth";
 export * from "./workspaces";
 export * from "./facilities";
 export * from "./revisions";
+export * from "./ops";

@@ -1,0 +1,24 @@
+/**
+ * Who is on the other end of a request, as the app's own server (scripts/serve.ts) recorded it.
+ * Those headers are set by that server on every request and anything a client sent under the
+ * same names is dropped there, so they can be believed; forwarded headers are only used by that
+ * server when TRUST_PROXY says a proxy is in front. Without the server (a bare `next dev`), the
+ * address is "unknown" and nothing is treated as loopback.
+ */
+export function clientAddress(headers: Headers): string {
+  return headers.get("x-rimeplan-client") || "unknown";
+}
+
+/** The socket's own address (the proxy's, when there is one). */
+export function peerAddress(headers: Headers): string {
+  return headers.get("x-rimeplan-peer") || "unknown";
+}
+
+export function isLoopbackAddress(a: string): boolean {
+  return a === "::1" || /^127\.\d{1,3}\.\d{1,3}\.\d{1,3}$/.test(a);
+}
+
+/** True when the request came straight from this machine: a loopback peer and no proxy in between. */
+export function isDirectLoopback(headers: Headers): boolean {
+  return isLoopbackAddress(peerAddress(headers)) && isLoopbackAddress(clientAddress(headers)) && !headers.get("x-forwarded-for");
+}
