@@ -4,6 +4,6 @@ export default defineConfig({
   dialect: "postgresql",
   schema: "./db/schema/index.ts",
   out: "./drizzle",
-  dbCredentials: { url: process.env.DATABASE_URL ?? "postgres://postgres@127.0.0.1:54329/rimeplan" },
+  dbCredentials: { url: process.env.DATABASE_URL ?? "postgres://rimeplan@127.0.0.1:54329/rimeplan" },
   strict: true,
 });

@@ -6,7 +6,8 @@ import { z } from "zod";
  */
 const schema = z.object({
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
-  DATABASE_URL: z.string().url().default("postgres://postgres@127.0.0.1:54329/rimeplan"),
+  /** The scripts export it with the app role's generated password; without one this default connects nowhere. */
+  DATABASE_URL: z.string().url().default("postgres://rimeplan@127.0.0.1:54329/rimeplan"),
   AUTH_SECRET: z.string().min(16, "AUTH_SECRET must be at least 16 characters").optional(),
   APP_URL: z.string().url().default("http://localhost:3000"),
   SMTP_HOST: z.string().default("127.0.0.1"),

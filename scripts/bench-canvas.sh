@@ -6,13 +6,13 @@
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 export BENCH_PORT="${BENCH_PORT:-3280}"
-export DATABASE_URL="${DATABASE_URL:-postgres://postgres@127.0.0.1:$PGPORT/rimeplan}"
 export AUTH_SECRET="${AUTH_SECRET:-bench-secret-$(head -c 12 /dev/urandom | base64 | tr -d '/+=')}"
 export AUTH_TRUST_HOST=true APP_URL="http://localhost:$BENCH_PORT" LOG_LEVEL=warn
 ensure_apt postgresql postgresql-client chromium
 ensure_node_modules
 pg_start
 pg_create_db rimeplan
+export DATABASE_URL="${DATABASE_URL:-$(pg_app_url rimeplan)}"
 node_modules/.bin/tsx scripts/migrate.ts
 node_modules/.bin/tsx seeds/demo.ts
 if [ "${SKIP_BUILD:-0}" != 1 ]; then

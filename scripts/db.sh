@@ -1,23 +1,34 @@
 #!/usr/bin/env bash
 # npm run db:start | db:stop | db:migrate | db:backup [file] | db:restore <file> [database]
+# `bash scripts/db.sh url` prints the app's DATABASE_URL (for `npm run dev`).
+# With DATABASE_URL set (an external PostgreSQL), backup and restore work on that database and
+# start/stop/migrate leave the local cluster alone except for migrate.
 source "$(dirname "$0")/lib.sh"
 export DATABASE_NAME="${DATABASE_NAME:-rimeplan}"
-export DATABASE_URL="${DATABASE_URL:-postgres://postgres@127.0.0.1:$PGPORT/$DATABASE_NAME}"
+external="${DATABASE_URL:+1}"
+app_url() { if [ -n "$external" ]; then echo "$DATABASE_URL"; else pg_app_url "$DATABASE_NAME"; fi; }
+# The same server and role as app_url, another database.
+url_for_db() { node -e 'const u = new URL(process.argv[1]); u.pathname = "/" + process.argv[2]; console.log(u.toString())' "$(app_url)" "$1"; }
 cmd="${1:-}"; shift || true
 case "$cmd" in
   start) pg_start; pg_create_db "$DATABASE_NAME" ;;
   stop) pg_stop ;;
-  migrate) pg_start; pg_create_db "$DATABASE_NAME"; (cd "$ROOT" && node_modules/.bin/tsx scripts/migrate.ts) ;;
+  url) app_url ;;
+  migrate)
+    if [ -z "$external" ]; then pg_start; pg_create_db "$DATABASE_NAME"; fi
+    (cd "$ROOT" && DATABASE_URL="$(app_url)" node_modules/.bin/tsx scripts/migrate.ts) ;;
   backup)
     mkdir -p "$ROOT/backups"
     out="${1:-$ROOT/backups/rimeplan-$(date -u +%Y%m%dT%H%M%SZ).dump}"
-    pg_dump --format=custom --no-owner --dbname="$DATABASE_URL" --file="$out"
+    url="$(app_url)"
+    pg_dump --format=custom --no-owner --dbname="$url" --file="$out"
     log "backup written to $out" ;;
   restore)
-    file="${1:?usage: db:restore <file> [database]}"; target="${2:-$DATABASE_NAME}"
-    pg_create_db "$target"
-    pg_restore --clean --if-exists --no-owner --exit-on-error \
-      --dbname="postgres://postgres@127.0.0.1:$PGPORT/$target" "$file"
+    file="${1:?usage: db:restore <file> [database]}"; target="${2:-}"
+    if [ -n "$target" ]; then url="$(url_for_db "$target")"; else url="$(app_url)"; target="$(node -e 'console.log(new URL(process.argv[1]).pathname.slice(1))' "$url")"; fi
+    [ -n "$external" ] || pg_create_db "$target"
+    # --no-owner: the restored objects belong to the role restoring them (the app's role).
+    pg_restore --clean --if-exists --no-owner --exit-on-error --dbname="$url" "$file"
     log "restored $file into database $target" ;;
-  *) echo "usage: scripts/db.sh start|stop|migrate|backup [file]|restore <file> [database]" >&2; exit 2 ;;
+  *) echo "usage: scripts/db.sh start|stop|url|migrate|backup [file]|restore <file> [database]" >&2; exit 2 ;;
 esac

@@ -6,18 +6,25 @@ cd "$ROOT"
 
 export PORT="${PORT:-3000}"
 export APP_URL="${APP_URL:-http://localhost:$PORT}"
-export DATABASE_URL="${DATABASE_URL:-postgres://postgres@127.0.0.1:$PGPORT/rimeplan}"
 export RIMEPLAN_DEV_MAIL=1
 export AUTH_TRUST_HOST=true
-if [ -z "${AUTH_SECRET:-}" ]; then
-  [ -f "$RIMEPLAN_RUN_DIR/auth-secret" ] || head -c 32 /dev/urandom | base64 | tr -d '\n' >"$RIMEPLAN_RUN_DIR/auth-secret"
-  AUTH_SECRET="$(cat "$RIMEPLAN_RUN_DIR/auth-secret")"; export AUTH_SECRET
-fi
 
 ensure_apt postgresql postgresql-client
 ensure_node_modules
 pg_start
 pg_create_db rimeplan
+export DATABASE_URL="${DATABASE_URL:-$(pg_app_url rimeplan)}"
+# The session-signing secret lives beside the cluster (outside the checkout): losing it signs
+# everyone out. One made by earlier versions in .run/ is moved there.
+if [ -z "${AUTH_SECRET:-}" ]; then
+  secret_file="$(pg_dir)/auth-secret"
+  if [ ! -s "$secret_file" ] && [ -s "$RIMEPLAN_RUN_DIR/auth-secret" ]; then
+    (umask 077; cp "$RIMEPLAN_RUN_DIR/auth-secret" "$secret_file") && rm -f "$RIMEPLAN_RUN_DIR/auth-secret"
+    log "moved the generated AUTH_SECRET from $RIMEPLAN_RUN_DIR to $secret_file"
+  fi
+  [ -s "$secret_file" ] || (umask 077; head -c 32 /dev/urandom | base64 | tr -d '\n' >"$secret_file")
+  AUTH_SECRET="$(cat "$secret_file")"; export AUTH_SECRET
+fi
 node_modules/.bin/tsx scripts/migrate.ts
 node_modules/.bin/tsx seeds/demo.ts
 smtp_start

@@ -14,6 +14,9 @@ export RIMEPLAN_RUN_DIR="$ROOT/.run/test"
 export MAIL_CATCHER_DIR="$RIMEPLAN_RUN_DIR/mail"
 export TEST_PORT="${TEST_PORT:-3210}"
 export LOG_LEVEL="${LOG_LEVEL:-warn}"
+# Test-only: the test cluster runs with fsync=off (see pg_options in lib.sh). It holds only
+# databases rebuilt on every run, so a machine crash loses nothing of value; never for the demo.
+export RIMEPLAN_PG_FAST=1
 mkdir -p "$RIMEPLAN_RUN_DIR"
 set -e
 ensure_apt postgresql postgresql-client chromium
@@ -26,13 +29,16 @@ trap 'smtp_stop' EXIT
 set +e
 
 RUN_ID="$(date +%s)_$$"
-export ADMIN_DATABASE_URL="postgres://postgres@127.0.0.1:$PGPORT/postgres"
+# Admin work (create and drop databases) as the superuser; the app and the tests as the app's
+# role, as in the demo. The fault tests stop and restart this cluster through lib.sh.
+ADMIN_DATABASE_URL="$(pg_admin_url postgres)"; export ADMIN_DATABASE_URL
+APP_DATABASE_URL="$(pg_app_url postgres)"; export APP_DATABASE_URL
 export TEMPLATE_DB="rimeplan_template"
 
 # Template database: migrated once per run, then cloned per suite (fast and always fresh).
 psql_admin -d postgres -c "drop database if exists $TEMPLATE_DB with (force)" >/dev/null
-psql_admin -d postgres -c "create database $TEMPLATE_DB" >/dev/null
-DATABASE_URL="postgres://postgres@127.0.0.1:$PGPORT/$TEMPLATE_DB" node_modules/.bin/tsx scripts/migrate.ts || exit 1
+pg_create_db "$TEMPLATE_DB" >/dev/null
+DATABASE_URL="$(pg_app_url "$TEMPLATE_DB")" node_modules/.bin/tsx scripts/migrate.ts || exit 1
 # Old per-run databases from earlier runs are dropped.
 for db in $(psql_admin -d postgres -c "select datname from pg_database where datname like 'rimeplan\\_t\\_%'"); do
   psql_admin -d postgres -c "drop database if exists \"$db\" with (force)" >/dev/null
@@ -62,8 +68,8 @@ fi
 
 log "browser tests: building the app"
 E2E_DB="rimeplan_t_e2e_$RUN_ID"
-psql_admin -d postgres -c "create database $E2E_DB template $TEMPLATE_DB" >/dev/null
-export DATABASE_URL="postgres://postgres@127.0.0.1:$PGPORT/$E2E_DB"
+psql_admin -d postgres -c "create database $E2E_DB template $TEMPLATE_DB owner $PG_APP_ROLE" >/dev/null
+DATABASE_URL="$(pg_app_url "$E2E_DB")"; export DATABASE_URL
 node_modules/.bin/tsx seeds/demo.ts || status=1
 export AUTH_SECRET="test-secret-$(head -c 16 /dev/urandom | base64 | tr -d '\n/+=')"
 export AUTH_TRUST_HOST=true APP_URL="http://localhost:$TEST_PORT" RIMEPLAN_DEV_MAIL=1

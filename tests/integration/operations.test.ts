@@ -42,27 +42,75 @@ describe("audit log", () => {
 });
 
 describe("backup and restore", () => {
+  // scripts/db.sh against the test cluster (scripts/test.sh exports PGPORT and RIMEPLAN_PG_DIR):
+  // it builds the app role's connection from the generated password beside the cluster, as
+  // `npm run db:backup` does. DATABASE_URL is left out so the script uses that local cluster.
+  const dbSh = (...args: string[]) => {
+    const { DATABASE_URL: _omit, ...rest } = process.env;
+    return execFileSync("bash", ["scripts/db.sh", ...args], {
+      cwd: root,
+      env: { ...rest, DATABASE_NAME: process.env.INTEGRATION_DB },
+      stdio: "pipe",
+    }).toString();
+  };
+  const onDb = async <T>(name: string, work: (c: Client) => Promise<T>) => {
+    const url = new URL(dbUrl());
+    url.pathname = `/${name}`;
+    const c = new Client({ connectionString: url.toString() });
+    await c.connect();
+    try {
+      return await work(c);
+    } finally {
+      await c.end();
+    }
+  };
+
   it("npm run db:backup / db:restore: a restored fresh database holds the data", async () => {
     const ws = await makeWorkspace("Backup check");
     const u = await makeUser();
     const f = await createFacility(ws.id, u.id, { name: "Restored facility", site: SITE });
     const dir = mkdtempSync(path.join(tmpdir(), "rimeplan-backup-"));
     const file = path.join(dir, "b.dump");
-    const env = { ...process.env, DATABASE_URL: dbUrl() };
-    execFileSync("bash", ["scripts/db.sh", "backup", file], { cwd: root, env, stdio: "pipe" });
+    expect(dbSh("backup", file)).toContain(`backup written to ${file}`);
     const target = `${process.env.INTEGRATION_DB}_restore`;
     await adminQuery(`drop database if exists ${target} with (force)`);
-    execFileSync("bash", ["scripts/db.sh", "restore", file, target], { cwd: root, env, stdio: "pipe" });
-    const url = new URL(dbUrl());
-    url.pathname = `/${target}`;
-    const c = new Client({ connectionString: url.toString() });
-    await c.connect();
-    const r = await c.query("select name, design_dry_bulb_c from facilities where id = $1", [f.id]);
-    // the append-only trigger came back with the schema
-    await expect(c.query("delete from audit_log")).rejects.toThrow(/append-only/);
-    await c.end();
+    dbSh("restore", file, target);
+    const r = await onDb(target, async (c) => {
+      const rows = (await c.query("select name, design_dry_bulb_c from facilities where id = $1", [f.id])).rows;
+      // the append-only trigger came back with the schema
+      await expect(c.query("delete from audit_log")).rejects.toThrow(/append-only/);
+      return rows;
+    });
     await adminQuery(`drop database if exists ${target} with (force)`);
-    expect(r.rows).toEqual([{ name: "Restored facility", design_dry_bulb_c: 32 }]);
+    expect(r).toEqual([{ name: "Restored facility", design_dry_bulb_c: 32 }]);
+  });
+
+  it("a restore over changed data brings back what the backup held, as the app's role (not a superuser)", async () => {
+    const ws = await makeWorkspace("Restore over changes");
+    const u = await makeUser();
+    const f = await createFacility(ws.id, u.id, { name: "Before the change", site: SITE });
+    const file = path.join(mkdtempSync(path.join(tmpdir(), "rimeplan-backup-")), "b.dump");
+    const target = `${process.env.INTEGRATION_DB}_rs`;
+    await adminQuery(`drop database if exists ${target} with (force)`);
+    dbSh("backup", file);
+    dbSh("restore", file, target);
+    const role = await onDb(target, async (c) => {
+      await c.query("update facilities set name = 'After the change' where id = $1", [f.id]);
+      await c.query("delete from facilities where id <> $1", [f.id]);
+      await c.query("insert into workspaces (slug, name) values ('after-backup', 'Made after the backup')");
+      return (await c.query("select current_user as u, rolsuper from pg_roles where rolname = current_user")).rows[0];
+    });
+    expect(role).toEqual({ u: "rimeplan", rolsuper: false });
+    dbSh("restore", file, target);
+    const after = await onDb(target, async (c) => ({
+      name: (await c.query("select name from facilities where id = $1", [f.id])).rows[0]?.name,
+      later: (await c.query("select count(*)::int as n from workspaces where slug = 'after-backup'")).rows[0].n,
+      facilities: (await c.query("select count(*)::int as n from facilities")).rows[0].n,
+      owner: (await c.query("select tableowner from pg_tables where tablename = 'facilities'")).rows[0].tableowner,
+    }));
+    const source = (await db.execute(sql`select count(*)::int as n from facilities`)).rows[0].n;
+    await adminQuery(`drop database if exists ${target} with (force)`);
+    expect(after).toEqual({ name: "Before the change", later: 0, facilities: source, owner: "rimeplan" });
   });
 });
 
