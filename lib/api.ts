@@ -2,6 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import type { z } from "zod";
 import { AppError, errorBody } from "./errors";
+import { dbErrorToAppError } from "./db-errors";
 import { authorize, type Action, type WorkspaceAccess } from "./authz";
 import { currentUser, type CurrentUser } from "./session";
 import { parseOrThrow } from "./validation";
@@ -78,13 +79,18 @@ export function route<PS extends z.ZodType = z.ZodType, BS extends z.ZodType = z
       status = res.status;
       return res;
     } catch (e) {
+      // Database errors that have a meaning for the requester (503 while it is away, 400 for a
+      // value it cannot hold, 409 for a lost race) are answered as such; the rest is a 500.
+      const known = dbErrorToAppError(e);
       const err =
-        e instanceof AppError
-          ? e
-          : new AppError("internal", "Something went wrong on the server. Try again; if it persists, report request " + requestId + ".");
-      if (!(e instanceof AppError)) log("error", "unhandled error", { requestId, error: String(e), stack: (e as Error)?.stack });
+        known ??
+        new AppError("internal", "Something went wrong on the server. Try again; if it persists, report request " + requestId + ".");
+      if (!known) log("error", "unhandled error", { requestId, error: String(e), stack: (e as Error)?.stack });
+      else if (!(e instanceof AppError)) log("warn", "database error answered as " + known.code, { requestId, error: String((e as Error)?.cause ?? e) });
       status = err.status;
-      return Response.json(errorBody(err), { status: err.status, headers: { "x-request-id": requestId } });
+      const headers: Record<string, string> = { "x-request-id": requestId };
+      if (err.code === "unavailable") headers["retry-after"] = "5";
+      return Response.json(errorBody(err), { status: err.status, headers });
     } finally {
       log("info", "request", {
         requestId,
