@@ -19,10 +19,17 @@ function makePool(): Pool {
   // An idle connection that the server ends (a restart, a failover, an admin's terminate) is
   // reported here; without a listener Node would end the process. The pool drops that client
   // and opens a fresh one for the next request, so the app recovers by itself.
-  p.on("error", (e) => {
-    log("warn", "database connection lost (idle client dropped; the pool reconnects on the next request)", {
-      error: String(e),
-      code: (e as { code?: string }).code,
+  // (The client's own listener below logs it.)
+  p.on("error", () => {});
+  // The same for a connection that is checked out but between queries (inside a transaction,
+  // while the app computes): the transaction's next query fails (answered 503) and the pool
+  // discards the broken client when it is released.
+  p.on("connect", (client) => {
+    client.on("error", (e) => {
+      log("warn", "database connection lost (requests using it answer 503; the pool reconnects)", {
+        error: String(e),
+        code: (e as { code?: string }).code,
+      });
     });
   });
   return p;
