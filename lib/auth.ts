@@ -11,6 +11,7 @@ import { consumeEmailToken } from "./email-tokens";
 import { clientKeyOf, recordSignInAttempt, signInAllowed } from "./rate-limit";
 import { audit } from "./audit";
 import { log } from "./log";
+import { isDatabaseUnavailable } from "./db-errors";
 
 export const SESSION_DAYS = 7;
 
@@ -22,6 +23,25 @@ class BadCredentials extends CredentialsSignin {
 }
 class BadLink extends CredentialsSignin {
   code = "bad_link";
+}
+class DatabaseUnavailable extends CredentialsSignin {
+  code = "unavailable";
+}
+
+/** A sign-in that fails because the database is away says so, instead of "wrong password" or "bad link". */
+function withDatabaseErrors<C extends { authorize: (raw: Partial<Record<string, unknown>>, request: Request) => Promise<unknown> }>(config: C): C {
+  const authorize = config.authorize;
+  return {
+    ...config,
+    async authorize(raw: Partial<Record<string, unknown>>, request: Request) {
+      try {
+        return await authorize(raw, request);
+      } catch (e) {
+        if (isDatabaseUnavailable(e)) throw new DatabaseUnavailable();
+        throw e;
+      }
+    },
+  };
 }
 
 const passwordInput = z.object({ email: z.string().trim().toLowerCase().email(), password: z.string().min(1).max(200) });
@@ -57,7 +77,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
     debug() {},
   },
   providers: [
-    Credentials({
+    Credentials(withDatabaseErrors({
       id: "password",
       name: "E-mail and password",
       credentials: { email: {}, password: {} },
@@ -81,8 +101,8 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
         await audit({ action: "auth.signin", actorId: user.id, actorEmail: user.email, detail: { method: "password" } });
         return { id: user.id, email: user.email, name: user.name, sid };
       },
-    }),
-    Credentials({
+    })),
+    Credentials(withDatabaseErrors({
       id: "link",
       name: "Sign-in link",
       credentials: { token: {} },
@@ -97,7 +117,7 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
         await audit({ action: "auth.signin", actorId: user.id, actorEmail: user.email, detail: { method: "link" } });
         return { id: user.id, email: user.email, name: user.name, sid };
       },
-    }),
+    })),
   ],
   callbacks: {
     jwt({ token, user }) {

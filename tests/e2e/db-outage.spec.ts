@@ -9,7 +9,7 @@
  */
 import { test, expect, type APIRequestContext } from "@playwright/test";
 import { execFileSync } from "node:child_process";
-import { stateOf, WS } from "./roles";
+import { emailOf, PASSWORD, stateOf, WS } from "./roles";
 
 test.use({ storageState: stateOf("designer") });
 
@@ -26,7 +26,7 @@ async function waitForHealthy(request: APIRequestContext) {
   await expect.poll(async () => (await request.get("/api/v1/health")).status(), { timeout: 60_000, intervals: [250, 500, 1000] }).toBe(200);
 }
 
-test("PostgreSQL stopped and started again under the running app: 503 with a clear message, then recovery by itself", async ({ request, page }) => {
+test("PostgreSQL stopped and started again under the running app: 503 with a clear message, then recovery by itself", async ({ request, page, browser }) => {
   test.setTimeout(180_000);
   const facilities = `/api/v1/workspaces/${WS}/facilities`;
   const before = await timed(request, facilities);
@@ -52,6 +52,16 @@ test("PostgreSQL stopped and started again under the running app: 503 with a cle
     await expect(page.getByRole("heading", { name: "The database is not reachable right now" })).toBeVisible();
     await expect(page.getByText(/Nothing you saved is lost/)).toBeVisible();
     await expect(page.getByRole("button", { name: "Try again" })).toBeVisible();
+
+    // Signing in says the database is away, not "wrong password".
+    const fresh = await browser.newContext({ storageState: { cookies: [], origins: [] } });
+    const signin = await fresh.newPage();
+    await signin.goto("/signin");
+    await signin.getByLabel("E-mail").fill(emailOf("designer"));
+    await signin.getByLabel("Password").fill(PASSWORD);
+    await signin.getByRole("button", { name: "Sign in" }).click();
+    await expect(signin.getByText(/database is not reachable right now, so nobody can sign in/)).toBeVisible();
+    await fresh.close();
   } finally {
     cluster("pg_start");
     await waitForHealthy(request);

@@ -11,7 +11,8 @@ export function LinkSignIn({ token }: { token: string }) {
     setBusy(true);
     const r = await signIn("link", { token, redirect: false });
     setBusy(false);
-    if (r?.error) setError("This sign-in link is invalid, used or expired. Ask for a new one from the sign-in page.");
+    if (r?.error && r.code === "unavailable") setError("Rimeplan's database is not reachable right now. Try again in a minute; if the link has expired by then, ask for a new one from the sign-in page.");
+    else if (r?.error) setError("This sign-in link is invalid, used or expired. Ask for a new one from the sign-in page.");
     else window.location.assign("/");
   }
   return (

@@ -8,6 +8,7 @@ import { api, ApiError } from "@/lib/api-client";
 const MESSAGES: Record<string, string> = {
   rate_limited: "Too many sign-in attempts for this address. Wait 15 minutes, or ask for a sign-in link.",
   bad_credentials: "E-mail or password is wrong.",
+  unavailable: "Rimeplan's database is not reachable right now, so nobody can sign in. Try again in a minute; if it keeps happening, tell whoever runs Rimeplan.",
 };
 
 type Mode = "password" | "link" | "reset";
