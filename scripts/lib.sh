@@ -56,9 +56,12 @@ pg_dir() {
 }
 
 # Where earlier versions of these scripts kept the cluster for the folder $1 (inside the
-# checkout, or under /var/tmp); pg_start moves such a cluster into $1.
+# checkout, or under /var/tmp); pg_start moves such a cluster into $1. Only for the default
+# folders (the demo's, and the test suite's "-test" sibling): a folder chosen with
+# RIMEPLAN_PG_DIR never receives another cluster.
 pg_legacy_dirs() {
-  local suffix=""; [[ "$1" == *-test ]] && suffix="-test"
+  local default suffix=""; default="$(RIMEPLAN_PG_DIR='' pg_dir)"
+  if [ "$1" = "$default-test" ]; then suffix="-test"; elif [ "$1" != "$default" ]; then return 0; fi
   echo "$ROOT/.pgdata$suffix"
   echo "/var/tmp/rimeplan-pg-$(printf '%s' "$ROOT" | md5sum | cut -c1-10)$suffix"
 }
