@@ -138,6 +138,10 @@ pg_start() {
         break
       fi
     done
+  else
+    for legacy in $(pg_legacy_dirs "$dir"); do
+      [ -f "$legacy/data/PG_VERSION" ] && log "note: an older cluster is still in $legacy and is not used (this one is $dir); move or delete it yourself"
+    done
   fi
   local su_pw app_pw
   su_pw="$(state_secret postgres.password)"; app_pw="$(state_secret "$PG_APP_ROLE.password")"
