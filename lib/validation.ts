@@ -3,7 +3,7 @@ import { AppError, type FieldError } from "./errors";
 
 /** Field-named errors from a zod failure: the path joined with dots, the message as written. */
 export function fieldErrorsOf(error: z.ZodError): FieldError[] {
-  return error.issues.map((i) => ({ field: i.path.map(String).join(".") || "(root)", message: i.message }));
+  return error.issues.map((i) => ({ field: i.path.length ? fieldName(i.path as (string | number)[]) : "(root)", message: i.message }));
 }
 
 /** Parse or throw a validation AppError whose message names the first bad field. */
@@ -21,8 +21,9 @@ export const MAX_JSON_DEPTH = 64;
 /** Keys that would reach an object's prototype machinery if copied by assignment; never data here. */
 const FORBIDDEN_KEYS = new Set(["__proto__", "constructor", "prototype"]);
 
+/** Dotted path of a field; an empty key is shown as "" so the name is never blank. */
 function fieldName(path: (string | number)[]): string {
-  return path.length ? path.map(String).join(".") : "(body)";
+  return path.length ? path.map((k) => (k === "" ? '""' : String(k))).join(".") : "(body)";
 }
 
 /**
