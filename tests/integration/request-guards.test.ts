@@ -10,6 +10,7 @@ import { and, count, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { auditLog, facilities, facilityLayouts, facilityRevisions, invites, memberships, scenarios, users } from "@/db/schema";
 import { env } from "@/lib/env";
+import { authorize } from "@/lib/authz";
 import type { CurrentUser } from "@/lib/session";
 import { newToken } from "@/lib/tokens";
 import { createFacility } from "@/features/facilities/queries";
@@ -258,6 +259,8 @@ describe("bad input answers 4xx naming the field, never 500", () => {
     expect(q.body.error.field).toBe("limit");
     const [row] = await db.select({ name: facilities.name }).from(facilities).where(eq(facilities.id, f.id));
     expect(row.name).toBe("Guarded");
+    // Pages look the workspace up through authorize() too: a NUL in the address is "not found".
+    await expect(authorize(session.user!.id, `${ws.slug}\u0000`, "facility.read")).rejects.toMatchObject({ code: "not_found" });
   });
 
   it("a revision number or base version beyond PostgreSQL's integer range", async () => {
