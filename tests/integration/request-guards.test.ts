@@ -6,7 +6,7 @@
 import { beforeEach, describe, expect, it, vi } from "vitest";
 import { readFileSync } from "node:fs";
 import path from "node:path";
-import { and, count, eq } from "drizzle-orm";
+import { and, count, eq, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { auditLog, facilities, facilityLayouts, facilityRevisions, invites, memberships, scenarios, users } from "@/db/schema";
 import { env } from "@/lib/env";
@@ -299,6 +299,8 @@ describe("parallel requests: one winner, clear 409s", () => {
   it("ten parallel issues of one revision: exactly one succeeds, nine get 409", async () => {
     const { ws, f, base, owner } = await setup();
     await saveFacilityModel({ workspaceId: ws.id, facilityId: f.id, userId: owner.id, baseVersion: 1, doc: demo });
+    // A warm pool, as on a running server: ten open connections, so the requests really overlap.
+    await Promise.all(Array.from({ length: 10 }, () => db.execute(sql`select pg_sleep(0.05)`)));
     const results = await Promise.all(
       Array.from({ length: 10 }, (_, i) =>
         call(issueRoute.POST, `${base}/facilities/${f.id}/revisions/2/issue`, {
