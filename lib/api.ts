@@ -137,9 +137,10 @@ interface RouteOptions<PS extends z.ZodType, BS extends z.ZodType, QS extends z.
 }
 
 /**
- * Every route handler goes through here: authenticate → parse params → authorize (role and
- * workspace, so a refused role always gets 403 whatever it sent) → parse body and query →
- * work → typed JSON.
+ * Every route handler goes through here: refuse changes from another site → authenticate →
+ * parse params → authorize (role and workspace, so a refused role always gets 403 whatever it
+ * sent) → read the body within its limit (JSON: content type, depth, NUL, finite numbers,
+ * schema, no unknown keys; or an upload) → parse the query → work → typed JSON.
  */
 export function route<PS extends z.ZodType = z.ZodType, BS extends z.ZodType = z.ZodType, QS extends z.ZodType = z.ZodType>(
   opts: RouteOptions<PS, BS, QS>,
