@@ -5,8 +5,109 @@ import { AppError, errorBody } from "./errors";
 import { dbErrorToAppError } from "./db-errors";
 import { authorize, type Action, type WorkspaceAccess } from "./authz";
 import { currentUser, type CurrentUser } from "./session";
-import { parseOrThrow } from "./validation";
+import { inspectJson, parseOrThrow, refuseUnknownKeys } from "./validation";
+import { env } from "./env";
 import { log } from "./log";
+
+/** Largest JSON body a route accepts unless it says otherwise. */
+export const DEFAULT_MAX_BODY_BYTES = 1024 * 1024;
+/** Largest JSON body of the routes that take a whole facility model document. */
+export const MODEL_MAX_BODY_BYTES = 4 * 1024 * 1024;
+
+const MUTATING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
+function mb(bytes: number): string {
+  return bytes >= 1024 * 1024 ? `${+(bytes / 1048576).toFixed(1)} MB` : `${Math.round(bytes / 1024)} KB`;
+}
+
+/**
+ * A mutating request (POST, PUT, PATCH, DELETE) sent by a page of another site — another port
+ * on the same host, a sibling subdomain — with the user's cookie is refused: its Origin must be
+ * the app's own (APP_URL), or, without an Origin, its Sec-Fetch-Site must not say cross-site or
+ * same-site. Requests with neither header (scripts, curl: no browser, no ambient cookie) pass.
+ * Returns the refusal, or null when the request may go on.
+ */
+export function foreignOriginError(req: Request): AppError | null {
+  if (!MUTATING.has(req.method.toUpperCase())) return null;
+  const own = new URL(env.APP_URL).origin;
+  const origin = req.headers.get("origin");
+  if (origin !== null) {
+    let from = "null";
+    try {
+      from = new URL(origin).origin;
+    } catch {
+      /* an unparseable Origin is foreign */
+    }
+    if (from === own) return null;
+    return new AppError("forbidden", `Refused: this change was sent from another site (Origin ${origin}). Rimeplan accepts changes only from its own pages at ${own}.`, "origin");
+  }
+  const site = req.headers.get("sec-fetch-site");
+  if (site === "cross-site" || site === "same-site")
+    return new AppError("forbidden", `Refused: this change was sent from another site (Sec-Fetch-Site: ${site}). Rimeplan accepts changes only from its own pages at ${own}.`, "origin");
+  return null;
+}
+
+/** For handlers outside route() (next-auth's): the 403 answer, or null when the request may go on. */
+export function refuseForeignOrigin(req: Request): Response | null {
+  const e = foreignOriginError(req);
+  return e ? Response.json(errorBody(e), { status: e.status }) : null;
+}
+
+/** JSON bodies must say so: `application/json`, optionally with a UTF-8 charset. */
+function requireJsonContentType(req: Request): void {
+  const ct = req.headers.get("content-type");
+  const [type, ...params] = (ct ?? "").split(";").map((x) => x.trim().toLowerCase());
+  const charset = params.find((p) => p.startsWith("charset="))?.slice(8).replace(/"/g, "");
+  if (type === "application/json" && (charset === undefined || charset === "utf-8" || charset === "utf8")) return;
+  throw new AppError(
+    "unsupported_media_type",
+    `The request body must be JSON sent with Content-Type: application/json (this one was ${ct ? `"${ct}"` : "sent without a Content-Type"}).`,
+    "content-type",
+  );
+}
+
+/**
+ * Reads a request body up to `maxBytes`, checking while the stream arrives: a declared
+ * Content-Length over the limit is refused before reading, and a body without one (chunked)
+ * is refused as soon as it passes the limit — its reader is cancelled, the rest never read.
+ */
+export async function readBodyLimited(req: Request, maxBytes: number, what = "The request body"): Promise<Buffer> {
+  const tooLarge = (size?: number) =>
+    new AppError(
+      "payload_too_large",
+      `${what} is ${size !== undefined ? mb(size) : "larger than the limit"}; at most ${mb(maxBytes)} is accepted here.`,
+      "(body)",
+      undefined,
+      { limitBytes: maxBytes },
+    );
+  const declared = req.headers.get("content-length");
+  if (declared !== null && Number(declared) > maxBytes) throw tooLarge(Number(declared));
+  if (!req.body) return Buffer.alloc(0);
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel().catch(() => undefined);
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks, total);
+}
+
+/** NUL characters in path segments or query values would reach PostgreSQL, which refuses them. */
+function refuseNul(values: Record<string, unknown>, where: string): void {
+  for (const [k, v] of Object.entries(values)) {
+    for (const x of Array.isArray(v) ? v : [v]) {
+      if ((typeof x === "string" && x.includes("\0")) || k.includes("\0"))
+        throw new AppError("validation", `${k}: the ${where} must not contain a NUL character (%00)`, k);
+    }
+  }
+}
 
 interface Ctx<P, B, Q> {
   req: Request;
@@ -16,12 +117,18 @@ interface Ctx<P, B, Q> {
   params: P;
   body: B;
   query: Q;
+  /** The raw body of an upload route (`upload` set), read within its limit. */
+  upload: Buffer | null;
 }
 
 interface RouteOptions<PS extends z.ZodType, BS extends z.ZodType, QS extends z.ZodType> {
   /** Route params (all strings); must include `ws` when `action` is set. */
   params?: PS;
   body?: BS;
+  /** Largest JSON body accepted, bytes (default 1 MB). */
+  maxBodyBytes?: number;
+  /** The body is a file (raw or multipart), read by route() within `maxBytes` into ctx.upload. */
+  upload?: { maxBytes: number; what: string };
   query?: QS;
   /** The authorization check against the workspace named by params.ws. */
   action?: Action;
@@ -31,9 +138,10 @@ interface RouteOptions<PS extends z.ZodType, BS extends z.ZodType, QS extends z.
 }
 
 /**
- * Every route handler goes through here: authenticate → parse params → authorize (role and
- * workspace, so a refused role always gets 403 whatever it sent) → parse body and query →
- * work → typed JSON.
+ * Every route handler goes through here: refuse changes from another site → authenticate →
+ * parse params → authorize (role and workspace, so a refused role always gets 403 whatever it
+ * sent) → read the body within its limit (JSON: content type, depth, NUL, finite numbers,
+ * schema, no unknown keys; or an upload) → parse the query → work → typed JSON.
  */
 export function route<PS extends z.ZodType = z.ZodType, BS extends z.ZodType = z.ZodType, QS extends z.ZodType = z.ZodType>(
   opts: RouteOptions<PS, BS, QS>,
@@ -44,9 +152,12 @@ export function route<PS extends z.ZodType = z.ZodType, BS extends z.ZodType = z
     const url = new URL(req.url);
     let status = 500;
     try {
+      const foreign = foreignOriginError(req);
+      if (foreign) throw foreign;
       const user = await currentUser();
       if (!user && !opts.public) throw new AppError("unauthenticated", "Sign in first.");
       const rawParams = context?.params ? await context.params : {};
+      refuseNul(rawParams, "path");
       const params = opts.params ? parseOrThrow(opts.params, rawParams) : rawParams;
       let access: WorkspaceAccess | null = null;
       if (opts.action) {
@@ -56,14 +167,20 @@ export function route<PS extends z.ZodType = z.ZodType, BS extends z.ZodType = z
       }
       let body: unknown = undefined;
       if (opts.body) {
+        requireJsonContentType(req);
+        const raw = await readBodyLimited(req, opts.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES);
         let json: unknown;
         try {
-          json = await req.json();
+          json = JSON.parse(new TextDecoder("utf-8", { fatal: true }).decode(raw));
         } catch {
-          throw new AppError("validation", "The request body must be JSON.", "(body)");
+          throw new AppError("validation", "The request body must be JSON (UTF-8).", "(body)");
         }
+        inspectJson(json);
         body = parseOrThrow(opts.body, json);
+        refuseUnknownKeys(json, body);
       }
+      const upload = opts.upload ? await readBodyLimited(req, opts.upload.maxBytes, opts.upload.what) : null;
+      refuseNul(Object.fromEntries(url.searchParams), "query");
       const query = opts.query ? parseOrThrow(opts.query, Object.fromEntries(url.searchParams)) : undefined;
       const result = await opts.handler({
         req,
@@ -73,6 +190,7 @@ export function route<PS extends z.ZodType = z.ZodType, BS extends z.ZodType = z
         params: params as never,
         body: body as never,
         query: query as never,
+        upload,
       });
       const res = result instanceof Response ? result : Response.json(result ?? { ok: true });
       res.headers.set("x-request-id", requestId);

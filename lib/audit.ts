@@ -1,5 +1,5 @@
 import "server-only";
-import { db } from "@/db/client";
+import { db, type Db } from "@/db/client";
 import { auditLog } from "@/db/schema";
 
 export type AuditAction =
@@ -23,7 +23,7 @@ export type AuditAction =
   | "export.created"
   | "import.committed";
 
-/** Appends one audit record (the table refuses updates and deletes). */
+/** Appends one audit record (the table refuses updates and deletes); inside `exec` when it is a transaction. */
 export async function audit(entry: {
   workspaceId?: string | null;
   actorId?: string | null;
@@ -32,8 +32,8 @@ export async function audit(entry: {
   targetType?: string;
   targetId?: string;
   detail?: Record<string, unknown>;
-}): Promise<void> {
-  await db.insert(auditLog).values({
+}, exec: Pick<Db, "insert"> = db): Promise<void> {
+  await exec.insert(auditLog).values({
     workspaceId: entry.workspaceId ?? null,
     actorId: entry.actorId ?? null,
     actorEmail: entry.actorEmail ?? null,

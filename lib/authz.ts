@@ -89,6 +89,8 @@ export interface WorkspaceAccess {
  * permission → forbidden, with a message that says which role may.
  */
 export async function authorize(userId: string, workspaceSlug: string, action: Action): Promise<WorkspaceAccess> {
+  // No slug holds a NUL (PostgreSQL text cannot): such a page address names no workspace.
+  if (workspaceSlug.includes("\0")) throw new AppError("not_found", "Workspace not found, or you are not a member of it.");
   const rows = await db
     .select({ id: workspaces.id, slug: workspaces.slug, name: workspaces.name, role: memberships.role })
     .from(memberships)

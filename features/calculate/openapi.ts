@@ -38,8 +38,10 @@ const ok = (description: string) => ({ description, content: { "application/json
 const errors = {
   "400": { description: "Invalid input; the error names the field and the allowed range", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
   "401": { description: "Not signed in", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
-  "403": { description: "Your role may not do this", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
+  "403": { description: "Your role may not do this, or a change sent from another site (Origin or Sec-Fetch-Site)", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
   "404": { description: "Not found, or not a member of the workspace", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
+  "413": { description: "Body over the route's limit (1 MB; 4 MB for model documents); the message names the limit", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
+  "415": { description: "A JSON body sent without Content-Type: application/json", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
 };
 const ws = { name: "ws", in: "path", required: true, schema: { type: "string" }, description: "Workspace slug" };
 const id = { name: "id", in: "path", required: true, schema: { type: "string", format: "uuid" }, description: "Facility id" };

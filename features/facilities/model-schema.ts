@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { MAX_INT4, versionNumber } from "./schema";
 
 export const modelDocSchema = z
   .object({
@@ -9,7 +10,7 @@ export const modelDocSchema = z
   .loose();
 
 export const saveModelSchema = z.object({
-  baseVersion: z.number({ error: "baseVersion (the version you edited) is required" }).int().min(1),
+  baseVersion: versionNumber("baseVersion"),
   doc: modelDocSchema,
   summary: z.string().max(200, "summary must be at most 200 characters").optional(),
 });
@@ -17,7 +18,11 @@ export const saveModelSchema = z.object({
 export const revisionParams = z.object({
   ws: z.string().min(1),
   id: z.string().uuid("Facility id must be a UUID"),
-  n: z.coerce.number().int().min(1, "Revision number must be 1 or more"),
+  n: z.coerce
+    .number({ error: `Revision number must be a whole number from 1 to ${MAX_INT4}` })
+    .int(`Revision number must be a whole number from 1 to ${MAX_INT4}`)
+    .min(1, "Revision number must be 1 or more")
+    .max(MAX_INT4, `Revision number must be at most ${MAX_INT4}`),
 });
 
 export const issueSchema = z.object({

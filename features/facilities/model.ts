@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq } from "drizzle-orm";
+import { and, desc, eq, isNull } from "drizzle-orm";
 import { db } from "@/db/client";
 import { facilities, facilityRevisions } from "@/db/schema";
 import { AppError, type FieldError } from "@/lib/errors";
@@ -8,7 +8,8 @@ import { computeFacility, facilityFluidsNeeded, PLANT_ENGINE_VERSION, type Facil
 import { loadFluid } from "@/lib/engine/thermo";
 import { createHash } from "node:crypto";
 import { getFacilityRow, toDto } from "./queries";
-import { EMPTY_MODEL_DOC, parseEngineModel, upgradeDoc, type ModelDoc } from "./engine-model";
+import { inspectJson, refuseUnknownKeys } from "@/lib/validation";
+import { EMPTY_MODEL_DOC, parseEngineModel, toEngineInput, upgradeDoc, type ModelDoc } from "./engine-model";
 import type { SiteConditions } from "./schema";
 
 type Row = typeof facilities.$inferSelect;
@@ -27,6 +28,25 @@ function engineModelOrThrow(doc: ModelDoc, site: SiteConditions): FacilityModel 
   });
   throw new AppError("validation", `${fields[0].field}: ${fields[0].message}`, fields[0].field, fields);
 }
+
+/** Deepest nesting a model document may have (the demo's is 6). */
+export const MAX_MODEL_DEPTH = 32;
+const MAX_COMMENT_CHARS = 2000;
+
+/**
+ * What is stored must be a valid model and nothing else: the engine's parse, and no key it
+ * does not know (a misspelt field, or a megabyte under a made-up name, is refused by name).
+ */
+function validateForSave(doc: ModelDoc, site: SiteConditions): void {
+  const model = engineModelOrThrow(doc, site);
+  // A top-level "$comment" (a note for people, as in the seed files) is kept as written.
+  const { $comment: comment, ...input } = toEngineInput(doc, site);
+  if (comment !== undefined && (typeof comment !== "string" || comment.length > MAX_COMMENT_CHARS))
+    throw new AppError("validation", `model.$comment: must be text of at most ${MAX_COMMENT_CHARS} characters`, "model.$comment");
+  refuseUnknownKeys(input, model, ["model"], "the model");
+}
+
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
 export async function loadFacilityModel(workspaceId: string, facilityId: string) {
   const row = await getFacilityRow(workspaceId, facilityId);
@@ -47,8 +67,12 @@ export async function saveFacilityModel(args: {
   baseVersion: number;
   doc: ModelDoc;
   summary?: string;
+  /** Run inside this transaction (a savepoint) so a caller's own writes commit with the save. */
+  tx?: Tx;
 }): Promise<{ version: number; doc: ModelDoc; rebased: boolean }> {
-  return db.transaction(async (tx) => {
+  // Before any recursive code (merge, zod, canonical JSON) walks it: bounded depth, no NUL, finite numbers.
+  inspectJson(args.doc, MAX_MODEL_DEPTH, ["model"]);
+  return (args.tx ?? db).transaction(async (tx) => {
     const [row] = await tx
       .select()
       .from(facilities)
@@ -81,7 +105,7 @@ export async function saveFacilityModel(args: {
       doc = merged.merged as unknown as ModelDoc;
       rebased = true;
     }
-    engineModelOrThrow(doc, site); // validate before anything is written
+    validateForSave(doc, site); // validate before anything is written
     if (deepEqual(doc, current) && row.model !== null) return { version: row.version, doc, rebased };
     const version = row.version + 1;
     await tx
@@ -147,19 +171,30 @@ export async function getRevision(facilityId: string, number: number) {
   return r;
 }
 
-/** Issues a revision: letter, status and checker recorded; the database then locks it. */
+/**
+ * Issues a revision: letter, status and checker recorded; the database then locks it. One
+ * transaction holding the facility's row lock, so parallel requests are taken one at a time:
+ * the first issues it, the others find it issued (or the letter taken) and get a 409.
+ */
 export async function issueRevision(facilityId: string, number: number, userId: string, v: { letter: string; status: string; checkedBy: string }) {
-  const rev = await getRevision(facilityId, number);
-  if (rev.issuedAt) throw new AppError("conflict", `Revision ${number} is already issued as ${rev.issuedLetter} (${rev.issuedStatus}).`);
-  const [dup] = await db
-    .select({ n: facilityRevisions.number })
-    .from(facilityRevisions)
-    .where(and(eq(facilityRevisions.facilityId, facilityId), eq(facilityRevisions.issuedLetter, v.letter)));
-  if (dup) throw new AppError("conflict", `Letter ${v.letter} is already used by revision ${dup.n}.`, "letter");
-  await db
-    .update(facilityRevisions)
-    .set({ issuedLetter: v.letter, issuedStatus: v.status, checkedBy: v.checkedBy, issuedBy: userId, issuedAt: new Date() })
-    .where(and(eq(facilityRevisions.facilityId, facilityId), eq(facilityRevisions.number, number)));
+  await db.transaction(async (tx) => {
+    await tx.select({ id: facilities.id }).from(facilities).where(eq(facilities.id, facilityId)).for("update");
+    const [rev] = await tx
+      .select({ issuedAt: facilityRevisions.issuedAt, issuedLetter: facilityRevisions.issuedLetter, issuedStatus: facilityRevisions.issuedStatus })
+      .from(facilityRevisions)
+      .where(and(eq(facilityRevisions.facilityId, facilityId), eq(facilityRevisions.number, number)));
+    if (!rev) throw new AppError("not_found", `Revision ${number} does not exist for this facility.`, "number");
+    if (rev.issuedAt) throw new AppError("conflict", `Revision ${number} is already issued as ${rev.issuedLetter} (${rev.issuedStatus}).`);
+    const [dup] = await tx
+      .select({ n: facilityRevisions.number })
+      .from(facilityRevisions)
+      .where(and(eq(facilityRevisions.facilityId, facilityId), eq(facilityRevisions.issuedLetter, v.letter)));
+    if (dup) throw new AppError("conflict", `Letter ${v.letter} is already used by revision ${dup.n}.`, "letter");
+    await tx
+      .update(facilityRevisions)
+      .set({ issuedLetter: v.letter, issuedStatus: v.status, checkedBy: v.checkedBy, issuedBy: userId, issuedAt: new Date() })
+      .where(and(eq(facilityRevisions.facilityId, facilityId), eq(facilityRevisions.number, number), isNull(facilityRevisions.issuedAt)));
+  });
   return getRevision(facilityId, number);
 }
 

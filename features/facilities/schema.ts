@@ -4,6 +4,17 @@ import { z } from "zod";
  * The allowed ranges of the site conditions, SI; the form states them in the user's units
  * before sending, the schema enforces them on the server.
  */
+/** Largest value of a PostgreSQL integer column (versions and revision numbers are stored in one). */
+export const MAX_INT4 = 2_147_483_647;
+
+/** A model version number in a body: a whole number from 1 to the column's largest. */
+export const versionNumber = (field: string) =>
+  z
+    .number({ error: `${field} (the version you edited) is required: a whole number from 1 to ${MAX_INT4}` })
+    .int(`${field} must be a whole number`)
+    .min(1, `${field} must be 1 or more`)
+    .max(MAX_INT4, `${field} must be at most ${MAX_INT4}`);
+
 export const SITE_RANGES = {
   designDryBulbC: { label: "Design dry bulb", min: -50, max: 55, kind: "temp" },
   coincidentWetBulbC: { label: "Coincident wet bulb", min: -50, max: 45, kind: "temp" },
@@ -69,7 +80,7 @@ export const updateFacilitySchema = z
     name: facilityNameSchema.optional(),
     site: siteConditionsSchema.optional(),
     /** The version the edit was based on; a stale one is refused with 409. */
-    baseVersion: z.number().int().min(1).optional(),
+    baseVersion: versionNumber("baseVersion").optional(),
   })
   .refine((v) => v.name !== undefined || v.site !== undefined, { message: "Nothing to change: give name or site" });
 export const duplicateFacilitySchema = z.object({ name: facilityNameSchema.optional() });

@@ -73,6 +73,30 @@ describe("upload checks", () => {
     expect(() => inspectZip(bomb)).toThrow(/zip bomb/);
   });
 
+  it("refuses a plausible workbook part over 4 MB inflated (within the ratio and the 2 MB upload), and takes a full 1000 × 40 sheet", async () => {
+    // Varied cells compress about 10:1, far under the ratio cap: only the size cap stops this one.
+    let seed = 7;
+    const cell = (r: number, c: number) => {
+      seed = (seed * 1103515245 + 12345) & 0x7fffffff;
+      return `<c r="${String.fromCharCode(65 + (c % 26))}${r}"><v>${seed % 97}</v></c>`;
+    };
+    const rows: string[] = [];
+    for (let r = 1, size = 0; size < 5 * 1024 * 1024; r++) {
+      const row = `<row r="${r}">${Array.from({ length: 40 }, (_, c) => cell(r, c)).join("")}</row>`;
+      rows.push(row);
+      size += row.length;
+    }
+    const big = zip([
+      { name: "[Content_Types].xml", data: Buffer.from("<Types/>") },
+      { name: "xl/worksheets/sheet1.xml", data: Buffer.from(`<worksheet><sheetData>${rows.join("")}</sheetData></worksheet>`) },
+    ]);
+    expect(big.length).toBeLessThan(2 * 1024 * 1024);
+    expect(() => inspectZip(big)).toThrow(/would expand to 5[\d,]+ bytes/);
+    // The largest import allowed (1000 data rows, 40 columns of short text) passes the guard.
+    const full = await xlsx([Array.from({ length: 40 }, (_, c) => `Column ${c}`), ...Array.from({ length: 1000 }, (_, r) => Array.from({ length: 40 }, (_, c) => `room ${r} value ${c}`))]);
+    expect(inspectZip(full).length).toBeGreaterThan(3);
+  });
+
   it("refuses an entry that inflates beyond its declared size", () => {
     const liar = zip([
       { name: "[Content_Types].xml", data: Buffer.from("<Types/>") },

@@ -17,14 +17,17 @@ export interface Upload {
   name: string | null;
 }
 
-/** Reads the multipart upload with its size limit checked before the body is read. */
-export async function readUpload(req: Request): Promise<Upload> {
-  const len = Number(req.headers.get("content-length") ?? Number.NaN);
-  if (!Number.isFinite(len)) throw new AppError("validation", "The upload must state its size (Content-Length).", "file");
-  if (len > MAX_UPLOAD_BYTES + 64 * 1024) throw new AppError("validation", `The file is too large: at most ${MAX_UPLOAD_BYTES / 1048576} MB is accepted.`, "file");
+/** Largest multipart request an import accepts: the file's limit plus room for the form's other parts. */
+export const MAX_IMPORT_REQUEST_BYTES = MAX_UPLOAD_BYTES + 64 * 1024;
+
+/**
+ * Parses a multipart upload whose bytes route() has already read within
+ * MAX_IMPORT_REQUEST_BYTES (checked while the stream arrived, with or without Content-Length).
+ */
+export async function readUpload(req: Request, raw: Buffer): Promise<Upload> {
   let form: FormData;
   try {
-    form = await req.formData();
+    form = await new Response(new Uint8Array(raw), { headers: { "content-type": req.headers.get("content-type") ?? "" } }).formData();
   } catch {
     throw new AppError("validation", "Send the file as multipart/form-data with a field named file.", "file");
   }
@@ -33,6 +36,8 @@ export async function readUpload(req: Request): Promise<Upload> {
   const mode = importModeSchema.safeParse(form.get("mode") ?? "preview");
   if (!mode.success) throw new AppError("validation", mode.error.issues[0].message, "mode");
   const rawName = form.get("name");
+  if ((file.name ?? "").includes("\0")) throw new AppError("validation", "file: the file name must not contain a NUL character", "file");
+  if (typeof rawName === "string" && rawName.includes("\0")) throw new AppError("validation", "name: must not contain a NUL character", "name");
   return { buf: Buffer.from(await file.arrayBuffer()), fileName: file.name || "upload", mode: mode.data, name: typeof rawName === "string" ? rawName : null };
 }
 

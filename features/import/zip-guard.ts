@@ -14,10 +14,18 @@ export interface ZipLimits {
   maxRatio: number;
 }
 
+/**
+ * An import holds at most 1000 rows of 40 columns: its sheet XML is about 1–4 MB even with
+ * inline text in every cell. The caps allow that and little more, because the spreadsheet
+ * library's time and memory grow with the inflated size. Measured here (2 cores, busy) on the
+ * worst workbook each cap lets through (one 40-column sheet as large as the part cap, under
+ * 2 MB compressed): 20 MB per part took 2.8–4.0 s and 220–240 MB more memory before it was
+ * refused for its row count; 4 MB per part takes 0.75–0.83 s and 47–49 MB.
+ */
 export const XLSX_LIMITS: ZipLimits = {
   maxEntries: 200,
-  maxTotalUncompressedBytes: 25 * 1024 * 1024,
-  maxEntryUncompressedBytes: 20 * 1024 * 1024,
+  maxTotalUncompressedBytes: 6 * 1024 * 1024,
+  maxEntryUncompressedBytes: 4 * 1024 * 1024,
   maxRatio: 150,
 };
 

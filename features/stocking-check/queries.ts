@@ -138,26 +138,42 @@ export async function applyScenario(args: { workspaceId: string; facilityId: str
   } catch (e) {
     asAppError(e, c.model, s.changes);
   }
-  const saved = await saveFacilityModel({
-    workspaceId: args.workspaceId,
-    facilityId: args.facilityId,
-    userId: args.userId,
-    baseVersion: c.version,
-    doc,
-    summary: `Stocking check "${s.name}" applied`,
-  });
-  await db
-    .update(scenarios)
-    .set({ appliedAt: new Date(), appliedRevision: saved.version, result: c.result as unknown as Record<string, unknown>, verdict: c.result.verdict })
-    .where(and(eq(scenarios.workspaceId, args.workspaceId), eq(scenarios.id, args.id)));
-  await audit({
-    workspaceId: args.workspaceId,
-    actorId: args.userId,
-    actorEmail: args.userEmail,
-    action: "scenario.applied",
-    targetType: "scenario",
-    targetId: args.id,
-    detail: { facilityId: args.facilityId, name: s.name, version: saved.version, fromVersion: c.version, verdict: c.result.verdict },
+  // One transaction holding the scenario's row lock: of parallel applies, the first writes the
+  // version, the scenario's mark and one audit row together; the others find it applied (409).
+  const saved = await db.transaction(async (tx) => {
+    const [row] = await tx
+      .select({ appliedAt: scenarios.appliedAt, appliedRevision: scenarios.appliedRevision })
+      .from(scenarios)
+      .where(and(eq(scenarios.workspaceId, args.workspaceId), eq(scenarios.facilityId, args.facilityId), eq(scenarios.id, args.id)))
+      .for("update");
+    if (!row) throw new AppError("not_found", "Stocking check not found for this facility.");
+    if (row.appliedAt) throw new AppError("conflict", `This stocking check was already applied as version ${row.appliedRevision}.`);
+    const v = await saveFacilityModel({
+      workspaceId: args.workspaceId,
+      facilityId: args.facilityId,
+      userId: args.userId,
+      baseVersion: c.version,
+      doc,
+      summary: `Stocking check "${s.name}" applied`,
+      tx,
+    });
+    await tx
+      .update(scenarios)
+      .set({ appliedAt: new Date(), appliedRevision: v.version, result: c.result as unknown as Record<string, unknown>, verdict: c.result.verdict })
+      .where(and(eq(scenarios.workspaceId, args.workspaceId), eq(scenarios.id, args.id)));
+    await audit(
+      {
+        workspaceId: args.workspaceId,
+        actorId: args.userId,
+        actorEmail: args.userEmail,
+        action: "scenario.applied",
+        targetType: "scenario",
+        targetId: args.id,
+        detail: { facilityId: args.facilityId, name: s.name, version: v.version, fromVersion: c.version, verdict: c.result.verdict },
+      },
+      tx,
+    );
+    return v;
   });
   return { scenario: await getScenario(args.workspaceId, args.facilityId, args.id), version: saved.version };
 }

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { scenarioChangesSchema } from "@/lib/engine/stocking/schema";
 import { installedPlantSchema } from "@/lib/engine/plant/schema";
+import { versionNumber } from "@/features/facilities/schema";
 import type { InstalledPlantRaw } from "./installed";
 import type { StockingCheckResult, Verdict } from "@/lib/engine/stocking";
 
@@ -60,7 +61,7 @@ export const installedQuery = z.object({
 });
 
 export const saveInstalledSchema = z.object({
-  baseVersion: z.number({ error: "baseVersion (the version you edited) is required" }).int().min(1),
+  baseVersion: versionNumber("baseVersion"),
   installed: installedPlantSchema,
 });
 

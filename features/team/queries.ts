@@ -2,7 +2,10 @@ import "server-only";
 import { and, asc, count, eq, gt, isNull, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { invites, memberships, sessions, users, workspaces } from "@/db/schema";
+import bcrypt from "bcryptjs";
 import { AppError } from "@/lib/errors";
+import { audit } from "@/lib/audit";
+import { hashPassword } from "@/features/auth/queries";
 import { hashToken, newToken } from "@/lib/tokens";
 import type { InviteDto, MemberDto } from "./schema";
 import type { RoleName } from "./roles";
@@ -100,19 +103,45 @@ export async function removeMember(workspaceId: string, userId: string): Promise
   });
 }
 
-export async function acceptInvite(inviteId: string, workspaceId: string, userId: string, role: RoleName): Promise<boolean> {
+/**
+ * Accepts an invitation in one transaction holding the invitation's row lock, so parallel
+ * accepts are taken one at a time: the first creates the account (for a new person) and the
+ * membership and marks the invitation used; the others find it used and get a 409.
+ * A new person gives a name and password; an existing account proves itself by being signed
+ * in as the invited address or by its password.
+ */
+export async function acceptInvite(args: { token: string; name?: string; password?: string; signedInUserId: string | null }) {
   return db.transaction(async (tx) => {
-    const [used] = await tx
-      .update(invites)
-      .set({ acceptedAt: new Date() })
-      .where(and(eq(invites.id, inviteId), isNull(invites.acceptedAt)))
-      .returning({ id: invites.id });
-    if (!used) return false;
-    await tx.insert(memberships).values({ workspaceId, userId, role }).onConflictDoUpdate({
+    const [found] = await tx
+      .select({ invite: invites, workspaceSlug: workspaces.slug })
+      .from(invites)
+      .innerJoin(workspaces, eq(workspaces.id, invites.workspaceId))
+      .where(eq(invites.tokenHash, hashToken(args.token)))
+      .for("update", { of: invites });
+    if (!found || found.invite.revokedAt || found.invite.expiresAt <= new Date())
+      throw new AppError("invalid_token", "This invitation is invalid, used, revoked or expired.", "token");
+    const { invite } = found;
+    if (invite.acceptedAt) throw new AppError("conflict", "This invitation was already accepted; sign in to use the workspace.", "token");
+    let [account] = await tx.select().from(users).where(eq(users.email, invite.email)).limit(1);
+    if (account) {
+      const signedInAsInvitee = args.signedInUserId === account.id;
+      const passwordOk = !!args.password && !!account.passwordHash && (await bcrypt.compare(args.password, account.passwordHash));
+      if (!signedInAsInvitee && !passwordOk) throw new AppError("validation", `Enter the password of the existing account ${invite.email}.`, "password");
+    } else {
+      if (!args.name) throw new AppError("validation", "Name is required (1 to 80 characters)", "name");
+      if (!args.password) throw new AppError("validation", "Password must be at least 10 characters", "password");
+      [account] = await tx.insert(users).values({ email: invite.email, name: args.name, passwordHash: await hashPassword(args.password) }).returning();
+    }
+    await tx.update(invites).set({ acceptedAt: new Date() }).where(eq(invites.id, invite.id));
+    await tx.insert(memberships).values({ workspaceId: invite.workspaceId, userId: account.id, role: invite.role }).onConflictDoUpdate({
       target: [memberships.workspaceId, memberships.userId],
-      set: { role },
+      set: { role: invite.role },
     });
-    return true;
+    await audit(
+      { workspaceId: invite.workspaceId, actorId: account.id, actorEmail: account.email, action: "member.joined", targetType: "invite", targetId: invite.id, detail: { role: invite.role } },
+      tx,
+    );
+    return { ok: true, workspace: found.workspaceSlug, email: account.email };
   });
 }
 

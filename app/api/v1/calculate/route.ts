@@ -1,4 +1,5 @@
-import { route } from "@/lib/api";
+import { z } from "zod";
+import { MODEL_MAX_BODY_BYTES, route } from "@/lib/api";
 import { AppError } from "@/lib/errors";
 import { calculate, CalcError } from "@/features/calculate/run";
 
@@ -7,15 +8,11 @@ import { calculate, CalcError } from "@/features/calculate/run";
  * Field-named validation errors (400) and calculation errors (422) name the input.
  */
 export const POST = route({
-  handler: async ({ req }) => {
-    let raw: unknown;
+  body: z.unknown(),
+  maxBodyBytes: MODEL_MAX_BODY_BYTES,
+  handler: async ({ body }) => {
     try {
-      raw = await req.json();
-    } catch {
-      throw new AppError("validation", "The request body must be a JSON facility model.", "(body)");
-    }
-    try {
-      return await calculate(raw);
+      return await calculate(body);
     } catch (e) {
       if (e instanceof CalcError) {
         throw new AppError(e.kind === "validation" ? "validation" : "calculation", e.message, e.issues[0]?.field, e.issues);

@@ -1,4 +1,4 @@
-import { route } from "@/lib/api";
+import { MODEL_MAX_BODY_BYTES, route } from "@/lib/api";
 import { can } from "@/lib/authz";
 import { audit } from "@/lib/audit";
 import { facilityParams } from "@/features/facilities/schema";
@@ -18,6 +18,7 @@ export const GET = route({
 export const PUT = route({
   params: facilityParams,
   body: saveModelSchema,
+  maxBodyBytes: MODEL_MAX_BODY_BYTES,
   action: "model.edit",
   handler: async ({ access, user, params, body }) => {
     const r = await saveFacilityModel({

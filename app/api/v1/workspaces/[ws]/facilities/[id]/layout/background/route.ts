@@ -23,13 +23,10 @@ export const GET = route({
 export const PUT = route({
   params: facilityParams,
   action: "model.edit",
-  handler: async ({ req, access, params }) => {
+  upload: { maxBytes: MAX_BACKGROUND_BYTES, what: "The site plan" },
+  handler: async ({ upload, access, params }) => {
     const f = await getFacilityRow(access!.workspace.id, params.id);
-    const declared = Number(req.headers.get("content-length") ?? "0");
-    if (declared > MAX_BACKGROUND_BYTES)
-      throw new AppError("validation", `The site plan is ${(declared / 1048576).toFixed(1)} MB; the limit is 5 MB. Export it at a lower resolution.`, "file");
-    const bytes = new Uint8Array(await req.arrayBuffer());
-    return { layout: await putBackground(f.id, bytes) };
+    return { layout: await putBackground(f.id, new Uint8Array(upload!)) };
   },
 });
 
