@@ -18,7 +18,17 @@ export function isLoopbackAddress(a: string): boolean {
   return a === "::1" || /^127\.\d{1,3}\.\d{1,3}\.\d{1,3}$/.test(a);
 }
 
-/** True when the request came straight from this machine: a loopback peer and no proxy in between. */
+/**
+ * True when the request came straight from this machine: a loopback peer and no proxy in between.
+ * Next itself fills X-Forwarded-For with the socket's address when the request has none (and
+ * scripts/serve.ts removes a client's own unless TRUST_PROXY), so a lone entry naming that same
+ * peer is not a proxy hop; any other entry is.
+ */
 export function isDirectLoopback(headers: Headers): boolean {
-  return isLoopbackAddress(peerAddress(headers)) && isLoopbackAddress(clientAddress(headers)) && !headers.get("x-forwarded-for");
+  const peer = peerAddress(headers);
+  if (!isLoopbackAddress(peer) || !isLoopbackAddress(clientAddress(headers))) return false;
+  const fwd = headers.get("x-forwarded-for");
+  if (!fwd) return true;
+  const hops = fwd.split(",").map((h) => h.trim().replace(/^::ffff:/, ""));
+  return hops.length === 1 && hops[0] === peer;
 }

@@ -25,7 +25,12 @@ describe("caught-mail page gate", () => {
   });
 
   it("is off when a request was forwarded, whatever address it claims", () => {
-    expect(devMailShown(ON, req("127.0.0.1", { "x-forwarded-for": "127.0.0.1" }))).toBe(false);
+    // Next's own record of the socket is not a hop
+    expect(devMailShown(ON, req("127.0.0.1", { "x-forwarded-for": "127.0.0.1" }))).toBe(true);
+    expect(devMailShown(ON, req("127.0.0.1", { "x-forwarded-for": "::ffff:127.0.0.1" }))).toBe(true);
+    expect(devMailShown(ON, req("127.0.0.1", { "x-forwarded-for": "127.0.0.2" }))).toBe(false);
+    expect(devMailShown(ON, req("127.0.0.1", { "x-forwarded-for": "203.0.113.9, 127.0.0.1" }))).toBe(false);
+    expect(devMailShown(ON, req("127.0.0.1", { "x-forwarded-for": "127.0.0.1, 127.0.0.1" }))).toBe(false);
     // a proxy on this machine passing on a stranger's request
     expect(devMailShown(ON, req("127.0.0.1", {}, "198.51.100.7"))).toBe(false);
   });
