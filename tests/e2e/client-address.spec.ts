@@ -74,12 +74,14 @@ test("the caught-mail page is shown on loopback and is a plain 404 to another ma
   const local = await get("127.0.0.1", "/dev/mail");
   expect(local.status).toBe(200);
   expect(local.body).toContain("Caught e-mail");
+  expect(local.body).toContain("Messages sent by this app");
   // without a proxy configured, a forwarded header is dropped: it is the socket that counts
   expect((await get("127.0.0.1", "/dev/mail", { "x-forwarded-for": "203.0.113.9" })).status).toBe(200);
 
   const plain = await get(OUTSIDE, "/dev/mail");
   expect(plain.status).toBe(404);
   expect(plain.body).not.toContain("Caught e-mail");
+  expect(plain.body).not.toContain("Messages sent by this app");
   const forged = await get(OUTSIDE, "/dev/mail", {
     "x-forwarded-for": "127.0.0.1",
     "x-real-ip": "127.0.0.1",
@@ -88,7 +90,7 @@ test("the caught-mail page is shown on loopback and is a plain 404 to another ma
     "x-rimeplan-client": "127.0.0.1",
   });
   expect(forged.status).toBe(404);
-  expect(forged.body).not.toContain("Caught e-mail");
+  expect(forged.body).not.toContain("Messages sent by this app");
   // from loopback but for another site's name (DNS rebinding)
   expect((await get("127.0.0.1", "/dev/mail", { host: `rebound.example:${PORT}` })).status).toBe(404);
 });
