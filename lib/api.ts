@@ -84,7 +84,9 @@ export function route<PS extends z.ZodType = z.ZodType, BS extends z.ZodType = z
           : new AppError("internal", "Something went wrong on the server. Try again; if it persists, report request " + requestId + ".");
       if (!(e instanceof AppError)) log("error", "unhandled error", { requestId, error: String(e), stack: (e as Error)?.stack });
       status = err.status;
-      return Response.json(errorBody(err), { status: err.status, headers: { "x-request-id": requestId } });
+      const retryAfter = err.extra?.retryAfterSeconds;
+      const headers: Record<string, string> = { "x-request-id": requestId, ...(typeof retryAfter === "number" ? { "retry-after": String(retryAfter) } : {}) };
+      return Response.json(errorBody(err), { status: err.status, headers });
     } finally {
       log("info", "request", {
         requestId,

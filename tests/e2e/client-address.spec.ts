@@ -32,18 +32,27 @@ function outsideAddress(): string {
 }
 const OUTSIDE = outsideAddress();
 
-function get(host: string, path: string, headers: Record<string, string> = {}): Promise<{ status: number; body: string }> {
+interface Answer {
+  status: number;
+  body: string;
+  headers: http.IncomingHttpHeaders;
+}
+
+function send(method: string, host: string, path: string, headers: Record<string, string> = {}, json?: unknown): Promise<Answer> {
   return new Promise((resolve, reject) => {
-    const req = http.request({ host, port: PORT, path, headers: { host: `localhost:${PORT}`, ...headers } }, (res) => {
+    const data = json === undefined ? undefined : JSON.stringify(json);
+    const h = { host: `localhost:${PORT}`, ...(data ? { "content-type": "application/json" } : {}), ...headers };
+    const req = http.request({ method, host, port: PORT, path, headers: h }, (res) => {
       let body = "";
       res.setEncoding("utf8");
       res.on("data", (c) => (body += c));
-      res.on("end", () => resolve({ status: res.statusCode ?? 0, body }));
+      res.on("end", () => resolve({ status: res.statusCode ?? 0, body, headers: res.headers }));
     });
     req.on("error", reject);
-    req.end();
+    req.end(data);
   });
 }
+const get = (host: string, path: string, headers: Record<string, string> = {}) => send("GET", host, path, headers);
 
 test.describe.configure({ mode: "serial" });
 
@@ -120,4 +129,26 @@ test("a stranger's failed sign-ins from another machine do not stop the real per
   await p.getByRole("button", { name: "Sign in" }).click();
   await expect(p.getByText("your role: viewer")).toBeVisible();
   await real.close();
+});
+
+test("sign-in link and reset requests are throttled per address, the same whether or not it has an account, saying when", async () => {
+  const answers: Record<string, Answer[]> = {};
+  for (const email of [emailOf("purchaser"), `nobody-${Date.now()}@example.test`]) {
+    answers[email] = [];
+    // both kinds count together
+    for (const path of ["/api/v1/auth/link", "/api/v1/auth/reset-request", "/api/v1/auth/link", "/api/v1/auth/reset-request"])
+      answers[email].push(await send("POST", OUTSIDE, path, {}, { email }));
+  }
+  const [real, none] = Object.values(answers);
+  expect(real.slice(0, 3).map((a) => a.status)).toEqual([200, 200, 200]);
+  expect(none.map((a) => a.status)).toEqual(real.map((a) => a.status));
+  expect(none.slice(0, 3).map((a) => a.body)).toEqual(real.slice(0, 3).map((a) => a.body));
+  expect(JSON.parse(none[3].body).error.message).toBe(JSON.parse(real[3].body).error.message);
+  const refused = real[3];
+  expect(refused.status).toBe(429);
+  const body = JSON.parse(refused.body);
+  expect(body.error.code).toBe("rate_limited");
+  expect(body.error.message).toMatch(/^Too many link requests for this address\. Try again in 1[45] minutes\.$/);
+  expect(Number(refused.headers["retry-after"])).toBeGreaterThan(800);
+  expect(Number(refused.headers["retry-after"])).toBeLessThanOrEqual(900);
 });
