@@ -1,17 +1,24 @@
+import { env } from "./env";
+
 /**
  * Who is on the other end of a request, as the app's own server (scripts/serve.ts) recorded it.
  * Those headers are set by that server on every request and anything a client sent under the
- * same names is dropped there, so they can be believed; forwarded headers are only used by that
- * server when TRUST_PROXY says a proxy is in front. Without the server (a bare `next dev`), the
- * address is "unknown" and nothing is treated as loopback.
+ * same names is dropped there; they are believed only beside that server's secret mark, so a
+ * client cannot forge them when the app runs without it (a bare `next start` or `next dev`): the
+ * address is then "unknown" and nothing is treated as loopback. Forwarded headers are only used
+ * by that server when TRUST_PROXY says a proxy is in front.
  */
+function fromServer(headers: Headers): boolean {
+  return !!env.RIMEPLAN_SERVER_MARK && headers.get("x-rimeplan-mark") === env.RIMEPLAN_SERVER_MARK;
+}
+
 export function clientAddress(headers: Headers): string {
-  return headers.get("x-rimeplan-client") || "unknown";
+  return (fromServer(headers) && headers.get("x-rimeplan-client")) || "unknown";
 }
 
 /** The socket's own address (the proxy's, when there is one). */
 export function peerAddress(headers: Headers): string {
-  return headers.get("x-rimeplan-peer") || "unknown";
+  return (fromServer(headers) && headers.get("x-rimeplan-peer")) || "unknown";
 }
 
 export function isLoopbackAddress(a: string): boolean {

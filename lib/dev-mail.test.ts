@@ -1,10 +1,14 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
+
+// the secret scripts/serve.ts makes at start; set before lib/env.ts reads the environment
+const MARK = vi.hoisted(() => (process.env.RIMEPLAN_SERVER_MARK = "mark-of-this-test-server"));
+
 import { devMailShown, isLoopbackHost, type DevMailSettings } from "./dev-mail";
 
 const ON: DevMailSettings = { flag: "1", catcherDir: "/tmp/mail", appUrl: "http://localhost:3000", trustProxy: 0 };
 /** Headers as scripts/serve.ts sets them for a request from `peer` (and `client`). */
 function req(peer: string, extra: Record<string, string> = {}, client = peer) {
-  return new Headers({ host: "localhost:3000", "x-rimeplan-peer": peer, "x-rimeplan-client": client, ...extra });
+  return new Headers({ host: "localhost:3000", "x-rimeplan-mark": MARK, "x-rimeplan-peer": peer, "x-rimeplan-client": client, ...extra });
 }
 
 describe("caught-mail page gate", () => {
@@ -35,8 +39,10 @@ describe("caught-mail page gate", () => {
     expect(devMailShown(ON, req("127.0.0.1", {}, "198.51.100.7"))).toBe(false);
   });
 
-  it("is off without the server's own record of the socket (a bare next start)", () => {
+  it("is off without the server's own record of the socket (a bare next start), even if a client forges it", () => {
     expect(devMailShown(ON, new Headers({ host: "localhost:3000" }))).toBe(false);
+    expect(devMailShown(ON, req("127.0.0.1", { "x-rimeplan-mark": "" }))).toBe(false);
+    expect(devMailShown(ON, req("127.0.0.1", { "x-rimeplan-mark": "guessed-mark-of-the-server" }))).toBe(false);
   });
 
   it("is never on for a deployment: APP_URL elsewhere, or a proxy configured", () => {
@@ -48,7 +54,7 @@ describe("caught-mail page gate", () => {
 
   it("is off when the Host header names another site (a rebinding DNS pointing at 127.0.0.1)", () => {
     expect(devMailShown(ON, req("127.0.0.1", { host: "evil.example:3000" }))).toBe(false);
-    expect(devMailShown(ON, new Headers({ "x-rimeplan-peer": "127.0.0.1", "x-rimeplan-client": "127.0.0.1" }))).toBe(false);
+    expect(devMailShown(ON, new Headers({ "x-rimeplan-mark": MARK, "x-rimeplan-peer": "127.0.0.1", "x-rimeplan-client": "127.0.0.1" }))).toBe(false);
   });
 
   it("knows which host names are this machine", () => {

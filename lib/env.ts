@@ -34,6 +34,8 @@ const schema = z.object({
   MAIL_PER_USER: z.coerce.number().int().min(1).max(100000).default(50),
   MAIL_PER_WORKSPACE: z.coerce.number().int().min(1).max(1000000).default(200),
   MAIL_LIMIT_WINDOW_MINUTES: z.coerce.number().int().min(1).max(1440).default(60),
+  /** Set by scripts/serve.ts for the app it serves (a secret per start); never set it by hand. */
+  RIMEPLAN_SERVER_MARK: z.string().min(16).optional(),
   /** Proxies in front of scripts/serve.ts (0: none). Any proxy means a deployment: the caught-mail page is then off. */
   TRUST_PROXY: z.coerce.number().int().min(0).max(10).default(0),
 });
