@@ -222,6 +222,11 @@ export async function takeMail(userId: string, workspaceId: string, recipients: 
     const whose = l.bucket === "mail.user" ? "you" : "this workspace";
     const per = windowSeconds === 3600 ? "hour" : humanWait(windowSeconds);
     const asked = recipients > 1 ? ` (this would send ${recipients})` : "";
+    if (recipients > l.max) {
+      throw new AppError("rate_limited", `E-mail limit: ${whose} can send at most ${l.max} e-mails per ${per}; send to fewer recipients.`, "to", undefined, {
+        retryAfterSeconds: t.retryAfterSeconds,
+      });
+    }
     refuse(
       `E-mail limit reached: ${whose} can send at most ${l.max} e-mails per ${per}${asked}. Nothing was sent. Try again in ${humanWait(t.retryAfterSeconds)}.`,
       t.retryAfterSeconds,

@@ -177,6 +177,13 @@ describe("e-mails people send are limited per user and per workspace", () => {
     await takeMail(fresh, randomUUID(), 1);
   });
 
+  it("a batch larger than the whole limit is refused as such, naming the recipients", async () => {
+    const e = await refusal(takeMail(randomUUID(), randomUUID(), env.MAIL_PER_USER + 1));
+    expect(e.status).toBe(429);
+    expect(e.field).toBe("to");
+    expect(e.message).toBe(`E-mail limit: you can send at most ${env.MAIL_PER_USER} e-mails per hour; send to fewer recipients.`);
+  });
+
   it("parallel requests never pass the cap", async () => {
     const user = randomUUID();
     const r = await Promise.allSettled(Array.from({ length: 12 }, () => takeMail(user, randomUUID(), Math.ceil(env.MAIL_PER_USER / 10))));
