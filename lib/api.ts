@@ -206,7 +206,8 @@ export function route<PS extends z.ZodType = z.ZodType, BS extends z.ZodType = z
       if (!known) log("error", "unhandled error", { requestId, error: String(e), stack: (e as Error)?.stack });
       else if (!(e instanceof AppError)) log("warn", "database error answered as " + known.code, { requestId, error: String((e as Error)?.cause ?? e) });
       status = err.status;
-      const headers: Record<string, string> = { "x-request-id": requestId };
+      const retryAfter = err.extra?.retryAfterSeconds;
+      const headers: Record<string, string> = { "x-request-id": requestId, ...(typeof retryAfter === "number" ? { "retry-after": String(retryAfter) } : {}) };
       if (err.code === "unavailable") headers["retry-after"] = "5";
       return Response.json(errorBody(err), { status: err.status, headers });
     } finally {

@@ -8,15 +8,20 @@ import { db } from "@/db/client";
 import { sessions, users } from "@/db/schema";
 import { env } from "./env";
 import { consumeEmailToken } from "./email-tokens";
-import { clientKeyOf, recordSignInAttempt, signInAllowed } from "./rate-limit";
+import { signInAttempt } from "./throttle";
+import { clientAddress } from "./client-address";
 import { audit } from "./audit";
 import { log } from "./log";
 import { isDatabaseUnavailable } from "./db-errors";
 
 export const SESSION_DAYS = 7;
 
+/** The code carries the wait, so the form can say "try again in N seconds". */
 class RateLimited extends CredentialsSignin {
-  code = "rate_limited";
+  constructor(seconds: number) {
+    super();
+    this.code = `rate_limited_${seconds}`;
+  }
 }
 class BadCredentials extends CredentialsSignin {
   code = "bad_credentials";
@@ -85,16 +90,18 @@ export const { handlers, auth, signIn, signOut } = NextAuth({
         const parsed = passwordInput.safeParse(raw);
         if (!parsed.success) throw new BadCredentials();
         const { email, password } = parsed.data;
-        const client = clientKeyOf(request.headers);
-        if (!(await signInAllowed(email, client))) {
-          await audit({ action: "auth.signin_failed", actorEmail: email, detail: { reason: "rate_limited" } });
-          throw new RateLimited();
+        const client = clientAddress(request.headers);
+        let user: typeof users.$inferSelect | undefined;
+        const r = await signInAttempt(email, client, async () => {
+          [user] = await db.select().from(users).where(eq(users.email, email)).limit(1);
+          return !!user?.passwordHash && (await bcrypt.compare(password, user.passwordHash));
+        });
+        if (r.outcome === "wait") {
+          await audit({ action: "auth.signin_failed", actorEmail: email, detail: { reason: "rate_limited", waitSeconds: r.seconds, client } });
+          throw new RateLimited(r.seconds);
         }
-        const [user] = await db.select().from(users).where(eq(users.email, email)).limit(1);
-        const ok = !!user?.passwordHash && (await bcrypt.compare(password, user.passwordHash));
-        await recordSignInAttempt(email, client, ok);
-        if (!ok || !user) {
-          await audit({ action: "auth.signin_failed", actorEmail: email, detail: { reason: "bad_credentials" } });
+        if (r.outcome === "bad" || !user) {
+          await audit({ action: "auth.signin_failed", actorEmail: email, detail: { reason: "bad_credentials", client } });
           throw new BadCredentials();
         }
         const sid = await openSession(user.id, request);

@@ -8,9 +8,13 @@
  *   dropped. Forwarded headers (X-Forwarded-For, X-Real-IP, X-Forwarded-Host/Proto/Port) are
  *   believed only with TRUST_PROXY=N (N proxies in front of the app, each appending to
  *   X-Forwarded-For); without it they are removed before the app sees the request.
+ * - Sets `x-rimeplan-mark` to a secret made at start and known only to this process (passed to
+ *   the app as RIMEPLAN_SERVER_MARK): the app believes the two address headers only beside it, so
+ *   they cannot be forged when the app is served some other way (a bare `next start`).
  *
  * Usage: tsx scripts/serve.ts [--dev]
  */
+import { randomBytes } from "node:crypto";
 import { createServer, type IncomingMessage } from "node:http";
 import next from "next";
 
@@ -48,6 +52,9 @@ export function clientOf(req: IncomingMessage, proxies: number): string {
   return hop ? normaliseAddress(hop) : peer;
 }
 
+const mark = randomBytes(24).toString("base64url");
+process.env.RIMEPLAN_SERVER_MARK = mark;
+
 const app = next({ dev, hostname: host, port });
 const handle = app.getRequestHandler();
 await app.prepare();
@@ -56,9 +63,11 @@ const server = createServer((req, res) => {
   const client = clientOf(req, trustProxy);
   delete req.headers["x-rimeplan-peer"];
   delete req.headers["x-rimeplan-client"];
+  delete req.headers["x-rimeplan-mark"];
   if (trustProxy === 0) for (const h of FORWARDED) delete req.headers[h];
   req.headers["x-rimeplan-peer"] = normaliseAddress(req.socket.remoteAddress);
   req.headers["x-rimeplan-client"] = client;
+  req.headers["x-rimeplan-mark"] = mark;
   void handle(req, res);
 });
 // Slow or idle clients do not hold sockets for ever.

@@ -1,4 +1,4 @@
-import { pgTable, text, timestamp, uuid, integer, index, uniqueIndex, pgEnum } from "drizzle-orm/pg-core";
+import { pgTable, text, timestamp, uuid, index, uniqueIndex, pgEnum } from "drizzle-orm/pg-core";
 
 export const unitSystem = pgEnum("unit_system", ["SI", "IP"]);
 export const themePref = pgEnum("theme_pref", ["system", "light", "dark"]);
@@ -49,17 +49,4 @@ export const emailTokens = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex("email_tokens_hash_key").on(t.tokenHash)],
-);
-
-/** Sign-in attempts, kept in PostgreSQL so the limit holds across processes and restarts. */
-export const signInAttempts = pgTable(
-  "sign_in_attempts",
-  {
-    id: uuid("id").primaryKey().defaultRandom(),
-    email: text("email").notNull(),
-    clientKey: text("client_key").notNull(),
-    succeeded: integer("succeeded").notNull().default(0),
-    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
-  },
-  (t) => [index("sign_in_attempts_email_idx").on(t.email, t.at), index("sign_in_attempts_client_idx").on(t.clientKey, t.at)],
 );

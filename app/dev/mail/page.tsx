@@ -1,10 +1,21 @@
 import { readdir, readFile } from "node:fs/promises";
 import path from "node:path";
+import { headers } from "next/headers";
 import { notFound } from "next/navigation";
 import { env } from "@/lib/env";
+import { devMailShown } from "@/lib/dev-mail";
 
 export const dynamic = "force-dynamic";
-export const metadata = { title: "Caught e-mail (development)" };
+
+async function shown(): Promise<boolean> {
+  const settings = { flag: env.RIMEPLAN_DEV_MAIL, catcherDir: env.MAIL_CATCHER_DIR, appUrl: env.APP_URL, trustProxy: env.TRUST_PROXY };
+  return devMailShown(settings, await headers());
+}
+
+/** Refused, the page is a plain 404 down to its title: nothing says there is a page here. */
+export async function generateMetadata() {
+  return (await shown()) ? { title: "Caught e-mail (development)" } : {};
+}
 
 interface Caught {
   id: string;
@@ -26,9 +37,9 @@ function linkify(text: string) {
   );
 }
 
-/** Development only: the messages the local fake SMTP server caught, newest first. */
+/** Development only: the messages the local fake SMTP server caught, newest first (see lib/dev-mail.ts for who may see it). */
 export default async function DevMail() {
-  if (env.RIMEPLAN_DEV_MAIL !== "1" || !env.MAIL_CATCHER_DIR) notFound();
+  if (!(await shown()) || !env.MAIL_CATCHER_DIR) notFound();
   const dir = env.MAIL_CATCHER_DIR;
   const files = (await readdir(dir).catch(() => [])).filter((f) => f.endsWith(".json")).sort().reverse().slice(0, 100);
   const mails: Caught[] = await Promise.all(files.map(async (f) => JSON.parse(await readFile(path.join(dir, f), "utf8")) as Caught));

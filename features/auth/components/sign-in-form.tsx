@@ -4,12 +4,7 @@ import { signIn } from "next-auth/react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/form/field";
 import { api, ApiError } from "@/lib/api-client";
-
-const MESSAGES: Record<string, string> = {
-  rate_limited: "Too many sign-in attempts for this address. Wait 15 minutes, or ask for a sign-in link.",
-  bad_credentials: "E-mail or password is wrong.",
-  unavailable: "Rimeplan's database is not reachable right now, so nobody can sign in. Try again in a minute; if it keeps happening, tell whoever runs Rimeplan.",
-};
+import { signInMessage } from "../messages";
 
 type Mode = "password" | "link" | "reset";
 
@@ -29,7 +24,7 @@ export function SignInForm() {
     try {
       if (mode === "password") {
         const r = await signIn("password", { email, password, redirect: false });
-        if (r?.error) setError(MESSAGES[r.code ?? ""] ?? MESSAGES.bad_credentials);
+        if (r?.error) setError(signInMessage(r.code));
         else window.location.assign("/");
       } else {
         const path = mode === "link" ? "/api/v1/auth/link" : "/api/v1/auth/reset-request";

@@ -1,6 +1,7 @@
 import { route, created } from "@/lib/api";
 import { audit } from "@/lib/audit";
 import { appLink, sendMail } from "@/lib/mail";
+import { takeMail } from "@/lib/throttle";
 import { wsParams } from "@/features/facilities/schema";
 import { inviteSchema } from "@/features/team/schema";
 import { createInvite, INVITE_DAYS } from "@/features/team/queries";
@@ -11,6 +12,7 @@ export const POST = route({
   body: inviteSchema,
   action: "members.invite",
   handler: async ({ access, user, body }) => {
+    await takeMail(user.id, access!.workspace.id, 1);
     const { invite, token } = await createInvite(access!.workspace.id, user.id, body.email, body.role);
     const link = appLink(`/invite?token=${encodeURIComponent(token)}`);
     await sendMail({
