@@ -62,11 +62,12 @@ async function runOne(kind: string, handler: JobHandler, bossJob: PgBoss.JobWith
     .where(and(eq(jobs.id, id), or(eq(jobs.status, "queued"), and(eq(jobs.status, "running"), lt(jobs.updatedAt, stale)))))
     .returning();
   if (!row) {
-    const [cur] = await db.select({ status: jobs.status }).from(jobs).where(eq(jobs.id, id));
-    // Finished or deleted: nothing to do. Running elsewhere and alive: let pg-boss try later.
-    if (!cur || cur.status === "done" || cur.status === "failed") return;
-    log("info", "job delivered again while it runs elsewhere; left to it", { kind, jobId: id });
-    throw new Error(`job ${id} is being run by another worker`);
+    // Finished, deleted, or running elsewhere with a live heartbeat (a second delivery, as after
+    // an expiry while the first attempt still works): the run in hand owns the row, so this
+    // delivery ends without running. If that run dies, its heartbeat stops; the row is then
+    // taken by pg-boss's next retry of it, or marked failed by the cleanup below.
+    log("info", "job delivered while finished or running elsewhere; not run again", { kind, jobId: id });
+    return;
   }
   const beat = setInterval(() => {
     patch(id, {}).catch(() => undefined);
