@@ -133,13 +133,20 @@ export async function startWorker(opts: { handlers: Record<string, JobHandler>; 
     await ensureQueue(boss, kind);
     const ids: string[] = [];
     for (let i = 0; i < concurrency; i++) {
-      ids.push(
-        await boss.work<{ jobId: string }>(
-          queueName(kind),
-          { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: opts.pollSeconds ?? env.JOBS_POLL_SECONDS },
-          async ([job]) => runOne(kind, handler, job),
-        ),
+      let self = "";
+      self = await boss.work<{ jobId: string }>(
+        queueName(kind),
+        { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: opts.pollSeconds ?? env.JOBS_POLL_SECONDS },
+        async ([job]) => {
+          try {
+            await runOne(kind, handler, job);
+          } finally {
+            // pg-boss waits a polling interval after each job; with a backlog, fetch the next at once.
+            boss.notifyWorker(self);
+          }
+        },
       );
+      ids.push(self);
     }
     byQueue.set(queueName(kind), ids);
   }

@@ -48,6 +48,9 @@ test.describe("purchaser", () => {
     expect(tags).toContain("EV-1");
     await expect(page.getByText(/the export is recorded/)).toBeVisible();
     await expect(page.getByText(/last exported .* by Pia Purchaser/)).toBeVisible();
+    // Leaving and coming back (the same tab) still shows the finished export and its download.
+    await page.reload();
+    await expect(page.getByRole("link", { name: /^Download .*\.xlsx/ })).toBeVisible();
   });
 });
 

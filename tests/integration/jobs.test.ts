@@ -160,6 +160,18 @@ describe("job queue", () => {
     expect(row).toMatchObject({ status: "done", attempts: 1 });
   });
 
+  it("a backlog is worked through one job after another, not one job per polling interval", async () => {
+    const opts = { retryLimit: 0, retryDelay: 1, retryBackoff: false, expireInSeconds: 30 };
+    const ids: string[] = [];
+    for (let i = 0; i < 20; i++) ids.push((await enqueue({ kind: "test.backlog", options: opts })).job.id);
+    const t0 = Date.now();
+    // One loop, polling every 2 s, no wake-up: waiting a poll per job would take about 40 s.
+    const w = await startWorker({ handlers: { "test.backlog": async () => undefined }, concurrency: 1, pollSeconds: 2, listen: false });
+    running.push(w);
+    for (const id of ids) await waitFor(id, ["done"]);
+    expect(Date.now() - t0).toBeLessThan(8_000);
+  });
+
   it("the same export asked for twice while queued is one job; another format or person is another", async () => {
     const ws = await makeWorkspace();
     const u = await makeUser();

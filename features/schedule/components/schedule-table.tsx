@@ -1,5 +1,5 @@
 "use client";
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import {
   flexRender,
@@ -83,6 +83,19 @@ export function ScheduleTable({ ws, facilityId, unitSystem, initial, canExport }
   const [visibility, setVisibility] = useState<VisibilityState>({ rating: false, refrigerant: false });
   const [starting, setStarting] = useState<Format | null>(null);
   const [exports, setExports] = useState<Partial<Record<Format, JobDto>>>({});
+  // The exports of this tab survive leaving the page: coming back shows their progress or download.
+  const storeKey = `rimeplan:exports:${facilityId}`;
+  useEffect(() => {
+    try {
+      const saved = JSON.parse(sessionStorage.getItem(storeKey) ?? "{}") as Partial<Record<Format, JobDto>>;
+      if (saved && typeof saved === "object") setExports((e) => ({ ...saved, ...e }));
+    } catch {
+      sessionStorage.removeItem(storeKey);
+    }
+  }, [storeKey]);
+  useEffect(() => {
+    if (Object.keys(exports).length) sessionStorage.setItem(storeKey, JSON.stringify(exports));
+  }, [exports, storeKey]);
   const [msg, setMsg] = useState<{ ok: boolean; text: string } | null>(null);
   const table = useReactTable({
     data: data.rows,
