@@ -36,7 +36,7 @@ export interface KindOptions {
   retryBackoff: boolean;
   /** An attempt running longer than this is given up (and retried). */
   expireInSeconds: number;
-  /** Forget the job's input once it is done (e-mail: the links in it are credentials). */
+  /** Forget the job's input once it is done or has failed for good (e-mail: the links in it are credentials). */
   clearInputWhenDone?: boolean;
 }
 

@@ -96,7 +96,7 @@ async function runOne(kind: string, handler: JobHandler, bossJob: PgBoss.JobWith
   } catch (e) {
     if (isPermanent(e)) {
       const fields: FieldError[] | undefined = e.fieldErrors;
-      await patch(id, { status: "failed", stage: "Failed", error: e.message, finishedAt: new Date(), resultJson: fields?.length ? { fields } : null, inputBytes: null });
+      await patch(id, { status: "failed", stage: "Failed", error: e.message, finishedAt: new Date(), resultJson: fields?.length ? { fields } : null, inputBytes: null, ...(kindOptions(kind, {}).clearInputWhenDone ? { input: {} } : {}) });
       log("warn", "job refused", { kind, jobId: id, attempt, error: e.message });
       return;
     }
@@ -104,7 +104,7 @@ async function runOne(kind: string, handler: JobHandler, bossJob: PgBoss.JobWith
     log(last ? "error" : "warn", last ? "job failed" : "job attempt failed", { kind, jobId: id, attempt, error: words(e), stack: (e as Error)?.stack });
     if (last) {
       const tries = attempt === 1 ? "" : ` after ${attempt} attempts`;
-      await patch(id, { status: "failed", stage: "Failed", error: `It failed${tries}: ${words(e)}`, finishedAt: new Date(), inputBytes: null });
+      await patch(id, { status: "failed", stage: "Failed", error: `It failed${tries}: ${words(e)}`, finishedAt: new Date(), inputBytes: null, ...(kindOptions(kind, {}).clearInputWhenDone ? { input: {} } : {}) });
     } else {
       await patch(id, { status: "queued", stage: `Attempt ${attempt} failed (${words(e)}); trying again shortly`, error: words(e) });
     }

@@ -34,6 +34,7 @@ test.describe("purchaser", () => {
     expect(status.job).toMatchObject({ status: "done", progress: 1, attempts: 1, error: null });
     expect(status.job.file).toMatchObject({ name: expect.stringMatching(/\.xlsx$/), mime: expect.stringContaining("spreadsheetml") });
     expect(status.job.file.bytes).toBeGreaterThan(5000);
+    await page.screenshot({ path: ".run/test/screenshots/schedule-export-job.png" });
     const download = page.waitForEvent("download");
     await page.getByRole("link", { name: /^Download .*\.xlsx/ }).click();
     const d = await download;

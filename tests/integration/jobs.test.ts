@@ -231,6 +231,28 @@ describe("jobs of the app", () => {
     await expect(jobFor(access(a, "owner"), mail.job.id, false)).rejects.toMatchObject({ code: "not_found" });
   });
 
+  it("sendMail only queues the mail; the worker delivers it to the relay and forgets the link", async () => {
+    const { sendMail } = await import("@/lib/mail");
+    const { readdirSync, readFileSync: read } = await import("node:fs");
+    const to = `queued-${Date.now()}@example.test`;
+    await sendMail({ to, subject: "Queued sign-in link", text: "Sign in: http://localhost:3000/signin/link?token=not-a-real-token" });
+    const [row] = await db.select().from(jobs).where(sql`${jobs.kind} = 'mail.send' and ${jobs.input}->>'to' = ${to}`);
+    expect(row).toMatchObject({ status: "queued", stage: "Waiting to be sent" });
+    await worker({ "mail.send": JOB_HANDLERS["mail.send"] });
+    const done = await waitFor(row.id, ["done"]);
+    expect(done).toMatchObject({ stage: "Sent", input: {} });
+    const dir = process.env.MAIL_CATCHER_DIR!;
+    let caught: { to: string[]; subject: string } | undefined;
+    for (let i = 0; i < 50 && !caught; i++) {
+      caught = readdirSync(dir)
+        .filter((f) => f.endsWith(".json"))
+        .map((f) => JSON.parse(read(path.join(dir, f), "utf8")))
+        .find((m) => m.to.includes(to));
+      if (!caught) await sleep(100);
+    }
+    expect(caught?.subject).toBe("Queued sign-in link");
+  });
+
   it("an export whose requester lost the right fails with the reason; a bad import fails naming the rows and changes nothing", async () => {
     const ws = await makeWorkspace();
     const u = await makeUser();

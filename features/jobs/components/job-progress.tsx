@@ -59,7 +59,7 @@ export function JobProgress({ job: initial, label, onFinished, children }: { job
         >
           <div className={`h-full transition-[width] ${job.status === "failed" ? "bg-danger" : "bg-accent"}`} style={{ width: `${job.status === "failed" ? 100 : Math.max(pct, waiting ? 2 : 5)}%` }} />
         </div>
-        <span className="tabular-nums text-xs text-muted">{pct}%</span>
+        <span className="tabular-nums text-xs text-muted">{job.status === "failed" ? `stopped at ${pct}%` : `${pct}%`}</span>
       </div>
       {job.status === "failed" ? (
         <div role="alert" className="text-danger">
