@@ -12,17 +12,28 @@ import { startWorker } from "@/lib/jobs/worker";
 import { JOB_HANDLERS } from "@/features/jobs/handlers";
 import { env } from "@/lib/env";
 
-const worker = await startWorker({ handlers: JOB_HANDLERS });
-// The browser tests wait for this line (playwright.config.ts).
-console.log(`worker ready: ${Object.keys(JOB_HANDLERS).join(", ")} · ${env.JOBS_CONCURRENCY} at a time per kind · polling every ${env.JOBS_POLL_SECONDS} s`);
-
 let stopping = false;
 const stop = async (signal: string) => {
   if (stopping) return;
   stopping = true;
   console.log(`worker stopping (${signal})`);
-  await worker.stop();
+  await worker?.stop();
   process.exit(0);
 };
 process.on("SIGINT", () => void stop("SIGINT"));
 process.on("SIGTERM", () => void stop("SIGTERM"));
+
+// The database may not be up yet (a machine starting, a managed database failing over): retry.
+let worker: Awaited<ReturnType<typeof startWorker>> | null = null;
+for (let attempt = 1; !worker; attempt++) {
+  try {
+    worker = await startWorker({ handlers: JOB_HANDLERS });
+  } catch (e) {
+    console.error(`worker cannot reach the database yet (${(e as Error).message}); trying again in 5 s`);
+    if (attempt === 1 && !process.env.DATABASE_URL) console.error("DATABASE_URL is not set: the default local database is used.");
+    await new Promise((r) => setTimeout(r, 5_000));
+  }
+}
+// The browser tests wait for this line (playwright.config.ts).
+console.log(`worker ready: ${Object.keys(JOB_HANDLERS).join(", ")} · ${env.JOBS_CONCURRENCY} at a time per kind · polling every ${env.JOBS_POLL_SECONDS} s`);
+

@@ -127,6 +127,15 @@ export interface WorkerHandle {
 export async function startWorker(opts: { handlers: Record<string, JobHandler>; concurrency?: number; pollSeconds?: number; listen?: boolean }): Promise<WorkerHandle> {
   const boss = newBoss({ supervise: true, max: 4 });
   await boss.start();
+  try {
+    return await run(boss, opts);
+  } catch (e) {
+    await boss.stop({ graceful: false }).catch(() => undefined);
+    throw e;
+  }
+}
+
+async function run(boss: PgBoss, opts: { handlers: Record<string, JobHandler>; concurrency?: number; pollSeconds?: number; listen?: boolean }): Promise<WorkerHandle> {
   const byQueue = new Map<string, string[]>();
   const concurrency = opts.concurrency ?? env.JOBS_CONCURRENCY;
   for (const [kind, handler] of Object.entries(opts.handlers)) {
@@ -151,21 +160,35 @@ export async function startWorker(opts: { handlers: Record<string, JobHandler>; 
     byQueue.set(queueName(kind), ids);
   }
 
-  // A new job wakes its workers at once instead of at their next poll.
+  // A new job wakes its workers at once instead of at their next poll. If the connection is
+  // lost (the database restarts), the workers poll meanwhile and the listener reconnects.
   let listener: Client | null = null;
-  if (opts.listen !== false) {
-    listener = new Client({ connectionString: env.DATABASE_URL, application_name: "rimeplan-worker-listen" });
-    listener.on("error", (e) => log("warn", "job wake-up listener lost; polling only", { error: e.message }));
-    listener.on("notification", (n) => {
+  let stopped = false;
+  let retry: NodeJS.Timeout | null = null;
+  const listen = async () => {
+    const c = new Client({ connectionString: env.DATABASE_URL, application_name: "rimeplan-worker-listen" });
+    listener = c;
+    const again = (e: unknown) => {
+      if (stopped || listener !== c) return;
+      listener = null;
+      log("warn", "job wake-up listener lost; polling until it reconnects", { error: words(e) });
+      c.end().catch(() => undefined);
+      retry = setTimeout(() => void listen(), 5_000);
+      retry.unref();
+    };
+    c.on("error", again);
+    c.on("end", () => again("connection ended"));
+    c.on("notification", (n) => {
       for (const id of byQueue.get(n.payload ?? "") ?? []) boss.notifyWorker(id);
     });
     try {
-      await listener.connect();
-      await listener.query(`listen ${WAKE_CHANNEL}`);
+      await c.connect();
+      await c.query(`listen ${WAKE_CHANNEL}`);
     } catch (e) {
-      log("warn", "job wake-up listener not started; polling only", { error: words(e) });
+      again(e);
     }
-  }
+  };
+  if (opts.listen !== false) await listen();
 
   // Finished jobs are kept a week for their results and history; e-mail jobs a day. A row left
   // "running" without a heartbeat for half an hour lost its worker for good (pg-boss has
@@ -182,8 +205,10 @@ export async function startWorker(opts: { handlers: Record<string, JobHandler>; 
   return {
     boss,
     async stop() {
+      stopped = true;
       clearInterval(cleaner);
-      await listener?.end().catch(() => undefined);
+      if (retry) clearTimeout(retry);
+      await (listener as Client | null)?.end().catch(() => undefined);
       await boss.stop({ graceful: true, wait: true, timeout: 30_000 });
     },
   };

@@ -172,6 +172,27 @@ describe("job queue", () => {
     expect(Date.now() - t0).toBeLessThan(8_000);
   });
 
+  it("a new job wakes an idle worker at once, also after its wake-up connection was cut and came back", async () => {
+    const opts = { retryLimit: 0, retryDelay: 1, retryBackoff: false, expireInSeconds: 30 };
+    // Polling every 30 s: a pickup within 3 s can only come from the wake-up.
+    const w = await startWorker({ handlers: { "test.wake": async () => undefined }, concurrency: 1, pollSeconds: 30 });
+    running.push(w);
+    await sleep(300);
+    let t0 = Date.now();
+    const first = await enqueue({ kind: "test.wake", options: opts });
+    await waitFor(first.job.id, ["done"], 3_000);
+    expect(Date.now() - t0).toBeLessThan(3_000);
+    const cut = await db.execute<{ n: number }>(
+      sql`select count(pg_terminate_backend(pid))::int as n from pg_stat_activity where application_name = 'rimeplan-worker-listen' and datname = current_database()`,
+    );
+    expect(cut.rows[0].n).toBeGreaterThanOrEqual(1);
+    await sleep(6_500); // the listener reconnects after 5 s
+    t0 = Date.now();
+    const second = await enqueue({ kind: "test.wake", options: opts });
+    await waitFor(second.job.id, ["done"], 3_000);
+    expect(Date.now() - t0).toBeLessThan(3_000);
+  });
+
   it("the same export asked for twice while queued is one job; another format or person is another", async () => {
     const ws = await makeWorkspace();
     const u = await makeUser();
