@@ -26,12 +26,25 @@ export default defineConfig({
     { name: "setup", testMatch: /auth\.setup\.ts/ },
     { name: "e2e", testMatch: /.*\.spec\.ts/, dependencies: ["setup"] },
   ],
-  webServer: {
-    command: `PORT=${port} node_modules/.bin/tsx scripts/serve.ts`,
-    url: `${baseURL}/api/v1/health`,
-    reuseExistingServer: false,
-    timeout: 120_000,
-    stdout: "ignore",
-    stderr: "pipe",
-  },
+  webServer: [
+    {
+      command: `PORT=${port} node_modules/.bin/tsx scripts/serve.ts`,
+      url: `${baseURL}/api/v1/health`,
+      reuseExistingServer: false,
+      timeout: 120_000,
+      stdout: "ignore",
+      stderr: "pipe",
+    },
+    // The job worker (mail, exports, imports), as `npm run demo` runs it beside the app.
+    {
+      name: "worker",
+      command: "node_modules/.bin/tsx --conditions=react-server scripts/worker.ts",
+      wait: { stdout: /worker ready/ },
+      reuseExistingServer: false,
+      timeout: 60_000,
+      stdout: "pipe",
+      stderr: "pipe",
+      gracefulShutdown: { signal: "SIGTERM", timeout: 10_000 },
+    },
+  ],
 });

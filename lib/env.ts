@@ -24,6 +24,10 @@ const schema = z.object({
    * See lib/throttle.ts for the whole rule.
    */
   SIGNIN_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(1000).default(5),
+  /** How often an idle job worker asks the queue for work (seconds, ≥ 0.5); a new job also wakes it at once. */
+  JOBS_POLL_SECONDS: z.coerce.number().min(0.5).max(60).default(2),
+  /** Jobs one worker process runs at the same time, per kind of job. */
+  JOBS_CONCURRENCY: z.coerce.number().int().min(1).max(16).default(1),
   SIGNIN_WINDOW_MINUTES: z.coerce.number().int().min(1).max(1440).default(15),
   /** The first required wait after the free failures; it doubles with each further failure, up to the window. */
   SIGNIN_WAIT_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),

@@ -2,6 +2,7 @@ import "server-only";
 import nodemailer from "nodemailer";
 import { env } from "./env";
 import { log } from "./log";
+import { enqueue } from "./jobs/queue";
 
 // Loopback fake SMTP in development and tests; a real relay is configured by SMTP_HOST/PORT.
 const transport = nodemailer.createTransport({
@@ -18,7 +19,18 @@ export interface Mail {
   html?: string;
 }
 
-export async function sendMail(mail: Mail): Promise<void> {
+/**
+ * Queues a mail (kind "mail.send"): the request answers at once, the worker delivers it, and a
+ * relay that is away is retried with backoff (JOB_KINDS in lib/jobs/queue.ts). `workspaceId`
+ * ties a workspace's mail to it.
+ */
+export async function sendMail(mail: Mail, meta: { workspaceId?: string | null; userId?: string | null } = {}): Promise<void> {
+  const { job } = await enqueue({ kind: "mail.send", workspaceId: meta.workspaceId ?? null, createdBy: meta.userId ?? null, input: { ...mail }, stage: "Waiting to be sent" });
+  log("info", "mail queued", { to: mail.to, subject: mail.subject, jobId: job.id });
+}
+
+/** Hands a mail to the SMTP relay now (the worker's "mail.send" handler). */
+export async function deliverMail(mail: Mail): Promise<void> {
   await transport.sendMail({ from: env.MAIL_FROM, ...mail });
   log("info", "mail sent", { to: mail.to, subject: mail.subject });
 }

@@ -31,6 +31,10 @@ smtp_start
 log "building the app"
 node_modules/.bin/next build >"$RIMEPLAN_RUN_DIR/build.log" 2>&1 || { tail -40 "$RIMEPLAN_RUN_DIR/build.log"; exit 1; }
 node_modules/.bin/tsx seeds/print-signins.ts "$APP_URL"
-# Not exec: the trap stops the fake SMTP server when the app stops (Ctrl-C).
-trap 'smtp_stop' EXIT INT TERM
+# The job worker (mail, exports, imports) runs beside the app and stops with it.
+node_modules/.bin/tsx --conditions=react-server scripts/worker.ts >>"$RIMEPLAN_RUN_DIR/worker.log" 2>&1 &
+WORKER_PID=$!
+log "job worker started (log: $RIMEPLAN_RUN_DIR/worker.log)"
+# Not exec: the trap stops the worker and the fake SMTP server when the app stops (Ctrl-C).
+trap 'kill "$WORKER_PID" 2>/dev/null; smtp_stop' EXIT INT TERM
 node_modules/.bin/tsx scripts/serve.ts

@@ -41,6 +41,8 @@ export const jobs = pgTable(
     error: text("error"),
     attempts: integer("attempts").notNull().default(0),
     input: jsonb("input").$type<Record<string, unknown>>().notNull().default({}),
+    /** An uploaded file the job works on (an import), kept in the database so any worker reads it. */
+    inputBytes: bytea("input_bytes"),
     resultJson: jsonb("result_json").$type<Record<string, unknown>>(),
     resultName: text("result_name"),
     resultMime: text("result_mime"),

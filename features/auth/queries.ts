@@ -53,7 +53,7 @@ export async function mailTokenLink(email: string, purpose: keyof typeof TOKEN_M
   if (user) {
     const token = await issueEmailToken(user.id, purpose);
     const link = appLink(`${t.path}?token=${encodeURIComponent(token)}`);
-    await sendMail({ to: user.email, subject: t.subject, text: t.text(link) });
+    await sendMail({ to: user.email, subject: t.subject, text: t.text(link) }, { userId: user.id });
   }
   return { ok: true, message: t.answer };
 }

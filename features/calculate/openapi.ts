@@ -45,6 +45,7 @@ const errors = {
 };
 const ws = { name: "ws", in: "path", required: true, schema: { type: "string" }, description: "Workspace slug" };
 const id = { name: "id", in: "path", required: true, schema: { type: "string", format: "uuid" }, description: "Facility id" };
+const jobId = { name: "jobId", in: "path", required: true, schema: { type: "string", format: "uuid" }, description: "Job id" };
 
 export function openApiDocument(serverUrl: string) {
   return {
@@ -139,10 +140,18 @@ export function openApiDocument(serverUrl: string) {
       "/api/v1/workspaces/{ws}/facilities/{id}/scenarios/{sid}/accept": { post: { summary: "Accept a stocking check (owner, designer)", parameters: [ws, id, { name: "sid", in: "path", required: true, schema: { type: "string", format: "uuid" } }], responses: { "200": ok("Accepted"), ...errors } } },
       "/api/v1/workspaces/{ws}/facilities/{id}/scenarios/{sid}/apply": { post: { summary: "Apply an accepted stocking check to the model as a new revision (owner, designer)", parameters: [ws, id, { name: "sid", in: "path", required: true, schema: { type: "string", format: "uuid" } }], responses: { "200": ok("Applied"), ...errors } } },
       "/api/v1/workspaces/{ws}/facilities/{id}/schedule": { get: { summary: "Equipment schedule with marks for what changed since the last export", parameters: [ws, id], responses: { "200": ok("Schedule"), ...errors } } },
-      "/api/v1/workspaces/{ws}/facilities/{id}/export.xlsx": { get: { summary: "Excel workbook: schedule, room loads, circuits, state points, design basis (owner, designer, purchaser); recorded", parameters: [ws, id], responses: { "200": { description: "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet" }, ...errors } } },
-      "/api/v1/workspaces/{ws}/facilities/{id}/export.csv": { get: { summary: "The schedule as CSV (owner, designer, purchaser); recorded", parameters: [ws, id], responses: { "200": { description: "text/csv" }, ...errors } } },
-      "/api/v1/workspaces/{ws}/facilities/{id}/import/rooms": { post: { summary: "Import a room list from XLSX/CSV: preview, then all-or-nothing commit (owner, designer)", parameters: [ws, id], responses: { "200": ok("Preview or committed"), ...errors } } },
-      "/api/v1/workspaces/{ws}/facilities/{id}/import/stocking": { post: { summary: "Import a stocking plan from XLSX/CSV into one stocking check (owner, designer, operations)", parameters: [ws, id], responses: { "200": ok("Preview or committed"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/exports": {
+        post: {
+          summary: "Start an export of the equipment schedule as a job (owner, designer, purchaser): .xlsx (schedule, room loads, circuits, state points, design basis) or .csv; recorded when made. The same person asking again for the same format while theirs is queued or running gets that job",
+          parameters: [ws, id],
+          requestBody: { required: true, content: { "application/json": { schema: { type: "object", required: ["format"], additionalProperties: false, properties: { format: { type: "string", enum: ["xlsx", "csv"] } } } } } },
+          responses: { "202": ok("{ job, reused }: the job to poll (Location header)"), ...errors },
+        },
+      },
+      "/api/v1/workspaces/{ws}/jobs/{jobId}": { get: { summary: "A job's status (queued, running, done, failed), progress 0–1, stage, error in words, and result; seen by the roles that may do its work", parameters: [ws, jobId], responses: { "200": ok("{ job }"), ...errors } } },
+      "/api/v1/workspaces/{ws}/jobs/{jobId}/result": { get: { summary: "Download the file a finished job made (an export)", parameters: [ws, jobId], responses: { "200": { description: "The file (xlsx or csv)" }, "409": ok("Not finished, or failed (with the reason)"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/import/rooms": { post: { summary: "Import a room list from XLSX/CSV: mode=preview answers the checked rows; mode=commit queues the all-or-nothing import as a job (owner, designer)", parameters: [ws, id], responses: { "200": ok("Preview"), "202": ok("{ job }: the commit, to poll"), ...errors } } },
+      "/api/v1/workspaces/{ws}/facilities/{id}/import/stocking": { post: { summary: "Import a stocking plan from XLSX/CSV into one stocking check: mode=preview answers the checked rows; mode=commit queues it as a job (owner, designer, operations)", parameters: [ws, id], responses: { "200": ok("Preview"), "202": ok("{ job }: the commit, to poll"), ...errors } } },
       "/api/v1/workspaces/{ws}/members": { get: { summary: "Members (and, for owners, pending invites)", parameters: [ws], responses: { "200": ok("Members"), ...errors } } },
       "/api/v1/workspaces/{ws}/members/{userId}": {
         patch: { summary: "Change a role (owner); the last owner cannot be demoted", parameters: [ws, { name: "userId", in: "path", required: true, schema: { type: "string", format: "uuid" } }], requestBody: body("ChangeRole"), responses: { "200": ok("Changed"), "409": ok("Last owner"), ...errors } },

@@ -61,16 +61,22 @@ function refuseIfErrors(errors: ImportResultDto["errors"]) {
 }
 
 type Actor = { id: string; email: string };
+/** Reports progress of an import running as a job (fraction 0…1, what is being done). */
+export type Progress = (fraction: number, stage: string) => Promise<void>;
+const quiet: Progress = async () => undefined;
 
 /** Room list: preview, or (all rows valid) add and update rooms as one new model version. */
-export async function importRooms(workspaceId: string, facilityId: string, user: Actor, u: Upload): Promise<ImportResultDto> {
+export async function importRooms(workspaceId: string, facilityId: string, user: Actor, u: Upload, progress: Progress = quiet): Promise<ImportResultDto> {
+  await progress(0.05, `Reading ${u.fileName}`);
   const t = await table(u);
+  await progress(0.35, `Checking ${t.rows.length} rows against the model`);
   const m = await loadFacilityModel(workspaceId, facilityId);
   const existing = (m.doc.rooms as { id: string; name: string }[]).map((r) => ({ id: r.id, name: r.name }));
   const plan = planRooms(t, existing);
   const out: ImportResultDto = { kind: "rooms", fileName: u.fileName, format: t.format, rows: plan.rows, errors: plan.errors, notes: plan.notes, itemCount: plan.items.length, committed: null };
   if (u.mode === "preview") return out;
   refuseIfErrors(plan.errors);
+  await progress(0.7, `Saving ${plan.items.length} rooms as a new model version`);
   const rooms = [...(m.doc.rooms as Record<string, unknown>[])];
   for (const r of plan.items) {
     if (r.existing) {
@@ -93,8 +99,10 @@ export async function importRooms(workspaceId: string, facilityId: string, user:
 }
 
 /** Stocking plan: preview, or (all rows valid) save it as one stocking check. */
-export async function importStocking(workspaceId: string, facilityId: string, user: Actor, u: Upload): Promise<ImportResultDto> {
+export async function importStocking(workspaceId: string, facilityId: string, user: Actor, u: Upload, progress: Progress = quiet): Promise<ImportResultDto> {
+  await progress(0.05, `Reading ${u.fileName}`);
   const t = await table(u);
+  await progress(0.35, `Checking ${t.rows.length} rows against the rooms and commodities`);
   const m = await loadFacilityModel(workspaceId, facilityId);
   const rooms = (m.doc.rooms as { id: string; name: string }[]).map((r) => ({ id: r.id, name: r.name }));
   const plan = planStocking(t, rooms, listCommodities().map((c) => ({ id: c.id, name: c.name })));
@@ -103,6 +111,7 @@ export async function importStocking(workspaceId: string, facilityId: string, us
   refuseIfErrors(plan.errors);
   const name = importNameSchema.safeParse(u.name ?? `Stocking plan from ${u.fileName}`.slice(0, 120));
   if (!name.success) throw new AppError("validation", name.error.issues[0].message, "name");
+  await progress(0.7, `Saving ${plan.items.length} rooms as one stocking check`);
   const s = await createScenario(workspaceId, facilityId, user.id, { name: name.data, changes: { rooms: plan.items, safetyFactorPlacement: "load" } });
   await audit({ workspaceId, actorId: user.id, actorEmail: user.email, action: "import.committed", targetType: "scenario", targetId: s.id, detail: { kind: "stocking", file: u.fileName, rows: plan.items.length } });
   return { ...out, committed: { scenarioId: s.id } };

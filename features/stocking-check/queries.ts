@@ -202,7 +202,7 @@ export async function emailScenario(args: {
     link,
     note: args.note,
   });
-  for (const to of args.to) await sendMail({ to, subject: mail.subject, text: mail.text });
+  for (const to of args.to) await sendMail({ to, subject: mail.subject, text: mail.text }, { workspaceId: args.workspaceId });
   return { sent: args.to.length };
 }
 

@@ -20,6 +20,9 @@ import { waitForMailLink } from "./mail";
  *  change a role          A      D        D          D        D
  *  remove a member        A      D        D          D        D
  *  read the audit log     A      D        D          D        D
+ *  start a schedule export A     A        D          A        D   (POST …/exports → 202, a job)
+ *  read an export job     A      A        D          A        D   (GET …/jobs/[id])
+ *  download its result    A      A        D          A        D   (GET …/jobs/[id]/result)
  */
 type Cell = "A" | "D";
 const M: Record<string, Record<Role, Cell>> = {
@@ -35,6 +38,9 @@ const M: Record<string, Record<Role, Cell>> = {
   changeRole: { owner: "A", designer: "D", operations: "D", purchaser: "D", viewer: "D" },
   removeMember: { owner: "A", designer: "D", operations: "D", purchaser: "D", viewer: "D" },
   readAudit: { owner: "A", designer: "D", operations: "D", purchaser: "D", viewer: "D" },
+  startExport: { owner: "A", designer: "A", operations: "D", purchaser: "A", viewer: "D" },
+  readExportJob: { owner: "A", designer: "A", operations: "D", purchaser: "A", viewer: "D" },
+  downloadExport: { owner: "A", designer: "A", operations: "D", purchaser: "A", viewer: "D" },
 };
 
 const site = { designDryBulbC: 30, coincidentWetBulbC: 21, groundTempC: 10, elevationM: 100 };
@@ -95,7 +101,23 @@ const ACTIONS: Record<keyof typeof M, (c: APIRequestContext, role: Role) => Prom
     return (await c.delete(`${base}/members/${target}`)).status();
   },
   readAudit: async (c) => (await c.get(`${base}/audit`)).status(),
+  startExport: async (c) => (await c.post(`${base}/facilities/${facilityId}/exports`, { data: { format: "csv" } })).status(),
+  readExportJob: async (c) => (await c.get(`${base}/jobs/${(await ownerExport()).id}`)).status(),
+  downloadExport: async (c) => (await c.get(`${base}/jobs/${(await ownerExport()).id}/result`)).status(),
 };
+
+/** One CSV export made by the owner and finished by the worker, shared by the job rows. */
+let exportJob: Promise<{ id: string }> | null = null;
+function ownerExport(): Promise<{ id: string }> {
+  exportJob ??= (async () => {
+    const r = await ctx.owner.post(`${base}/facilities/${facilityId}/exports`, { data: { format: "csv" } });
+    expect(r.status()).toBe(202);
+    const { job } = await r.json();
+    await expect.poll(async () => (await (await ctx.owner.get(job.url)).json()).job.status, { timeout: 30_000 }).toBe("done");
+    return { id: job.id as string };
+  })();
+  return exportJob;
+}
 
 for (const [action, row] of Object.entries(M)) {
   for (const role of ROLES) {
@@ -118,6 +140,16 @@ test("a forbidden answer names the role and what is allowed", async () => {
   expect(body.error.code).toBe("forbidden");
   expect(body.error.message).toContain("viewer");
   expect(body.error.message).toContain("owner, designer");
+});
+
+test("a job is found only under its own workspace and by its id: a made-up id is 404, a malformed one 400", async () => {
+  const r = await ctx.owner.get(`${base}/jobs/00000000-0000-4000-8000-000000000000`);
+  expect(r.status()).toBe(404);
+  expect((await r.json()).error.message).toBe("Job not found in this workspace.");
+  const bad = await ctx.owner.get(`${base}/jobs/not-a-uuid`);
+  expect(bad.status()).toBe(400);
+  expect((await bad.json()).error.message).toMatch(/Job id must be a UUID/);
+  expect((await ctx.owner.get(`/api/v1/workspaces/no-such-workspace/jobs/${(await ownerExport()).id}`)).status()).toBe(404);
 });
 
 test("a non-member cannot see that another workspace exists", async () => {

@@ -1,3 +1,5 @@
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import { test, expect } from "@playwright/test";
 import { stateOf, WS } from "./roles";
 import { facilityWithInstalledPlant } from "./stocking-fixture";
@@ -57,4 +59,40 @@ test("a zip bomb named .xlsx is refused before it is read", async ({ page }) => 
   });
   expect(r.status()).toBe(400);
   expect((await r.json()).error.message).toMatch(/zip bomb/);
+});
+
+test.describe("a commit refused on the worker", () => {
+  test.use({ storageState: stateOf("designer") });
+
+  test("says why in words, naming the row, and nothing is imported", async ({ page }) => {
+    // A facility of its own, with the invented demo rooms.
+    const site = { designDryBulbC: 32, coincidentWetBulbC: 23, groundTempC: 12, elevationM: 150 };
+    const made = await page.request.post(`/api/v1/workspaces/${WS}/facilities`, { data: { name: `Import race ${Date.now()}`, site } });
+    expect(made.status()).toBe(201);
+    const fid = (await made.json()).facility.id as string;
+    const modelUrl = `/api/v1/workspaces/${WS}/facilities/${fid}/model`;
+    const demo = JSON.parse(readFileSync(path.resolve("seeds/data/harrowfield-model.json"), "utf8"));
+    delete demo.$comment;
+    const first = await (await page.request.get(modelUrl)).json();
+    expect((await page.request.put(modelUrl, { data: { baseVersion: first.version, doc: demo, summary: "demo rooms" } })).status()).toBe(200);
+
+    await page.goto(`/w/${WS}/f/${fid}/import`);
+    const region = page.getByRole("region", { name: "Import a stocking plan" });
+    await region.getByLabel("File").setInputFiles({ name: "plan.csv", mimeType: "text/csv", buffer: Buffer.from("Room;Intake [t/day];Entering [°C]\r\nProduce room +2 °C (apples);16,5;18\r\n") });
+    await region.getByRole("button", { name: "Preview" }).click();
+    const save = region.getByRole("button", { name: "Save as a stocking check (1 room)" });
+    await expect(save).toBeEnabled();
+    // Meanwhile someone renames the room the plan names (by its name): the commit, checked again on the worker, is refused.
+    const cur = await (await page.request.get(modelUrl)).json();
+    const rooms = cur.doc.rooms.map((r: { name: string }) => (r.name === "Produce room +2 °C (apples)" ? { ...r, name: "Pear store +2 °C" } : r));
+    expect((await page.request.put(modelUrl, { data: { baseVersion: cur.version, doc: { ...cur.doc, rooms }, summary: "room renamed" } })).status()).toBe(200);
+    await save.click();
+    const alert = region.getByRole("alert");
+    await expect(alert).toContainText("Import of plan.csv failed: 1 problem in the file; nothing was imported.");
+    await expect(alert).toContainText('no room "Produce room +2 °C (apples)" in this facility');
+    await expect(region.getByRole("progressbar")).toHaveAttribute("aria-valuetext", /Failed/);
+    await region.screenshot({ path: ".run/test/screenshots/import-job-failed.png" });
+    const checks = await (await page.request.get(`/api/v1/workspaces/${WS}/facilities/${fid}/scenarios`)).json();
+    expect(checks.scenarios).toHaveLength(0);
+  });
 });

@@ -6,6 +6,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/form/field";
 import { ApiError } from "@/lib/api-client";
 import { fmt } from "@/lib/units";
+import { JobProgress, type JobDto } from "@/features/jobs";
 import type { ImportResultDto } from "../schema";
 
 type Kind = "rooms" | "stocking";
@@ -43,7 +44,10 @@ const HELP: Record<Kind, { title: string; columns: string; example: string }> = 
   },
 };
 
-async function send(url: string, file: File, mode: "preview" | "commit", name?: string): Promise<ImportResultDto> {
+/** preview → the checked rows now; commit → 202 with the import job. */
+async function send(url: string, file: File, mode: "preview", name?: string): Promise<ImportResultDto>;
+async function send(url: string, file: File, mode: "commit", name?: string): Promise<{ job: JobDto }>;
+async function send(url: string, file: File, mode: "preview" | "commit", name?: string): Promise<unknown> {
   const fd = new FormData();
   fd.set("file", file);
   fd.set("mode", mode);
@@ -54,7 +58,7 @@ async function send(url: string, file: File, mode: "preview" | "commit", name?: 
     const e = data?.error ?? {};
     throw new ApiError(e.message ?? `Import failed (${res.status})`, res.status, e.code ?? "unknown", e.field, e.fields, data);
   }
-  return data as ImportResultDto;
+  return data;
 }
 
 function ImportSection({ kind, ws, facilityId }: { kind: Kind; ws: string; facilityId: string }) {
@@ -66,6 +70,7 @@ function ImportSection({ kind, ws, facilityId }: { kind: Kind; ws: string; facil
   const [preview, setPreview] = useState<ImportResultDto | null>(null);
   const [error, setError] = useState<{ message: string; fields?: { field: string; message: string }[] } | null>(null);
   const [done, setDone] = useState<ImportResultDto | null>(null);
+  const [job, setJob] = useState<JobDto | null>(null);
   const h = HELP[kind];
   const router = useRouter();
 
@@ -74,12 +79,12 @@ function ImportSection({ kind, ws, facilityId }: { kind: Kind; ws: string; facil
     setBusy(mode);
     setError(null);
     try {
-      const r = await send(url, file, mode, kind === "stocking" ? name.trim() || undefined : undefined);
-      if (mode === "preview") setPreview(r);
+      const n = kind === "stocking" ? name.trim() || undefined : undefined;
+      if (mode === "preview") setPreview(await send(url, file, "preview", n));
       else {
-        setDone(r);
+        // The commit runs on the worker; its progress and outcome show below.
+        setJob((await send(url, file, "commit", n)).job);
         setPreview(null);
-        router.refresh();
       }
     } catch (e) {
       setError(e instanceof ApiError ? { message: e.message, fields: e.fields } : { message: "The upload did not reach the server. Try again." });
@@ -87,6 +92,15 @@ function ImportSection({ kind, ws, facilityId }: { kind: Kind; ws: string; facil
       setBusy(null);
     }
   }
+
+  function finished(j: JobDto) {
+    if (j.status === "done") {
+      setDone(j.result as unknown as ImportResultDto);
+      setJob(null);
+      router.refresh();
+    }
+  }
+  const importing = job !== null && job.status !== "done" && job.status !== "failed";
 
   const errorsByRow = new Map<number, { column: string; message: string }[]>();
   for (const e of preview?.errors ?? []) errorsByRow.set(e.row, [...(errorsByRow.get(e.row) ?? []), e]);
@@ -116,6 +130,7 @@ function ImportSection({ kind, ws, facilityId }: { kind: Kind; ws: string; facil
               setPreview(null);
               setDone(null);
               setError(null);
+              setJob(null);
             }}
             className="text-sm"
           />
@@ -125,7 +140,7 @@ function ImportSection({ kind, ws, facilityId }: { kind: Kind; ws: string; facil
             <Field id="stocking-import-name" label="Name of the stocking check" placeholder="Stocking plan from <file>" value={name} onChange={(e) => setName(e.target.value)} maxLength={120} />
           </div>
         ) : null}
-        <Button onClick={() => run("preview")} disabled={!file || busy !== null}>
+        <Button onClick={() => run("preview")} disabled={!file || busy !== null || importing}>
           {busy === "preview" ? "Reading…" : "Preview"}
         </Button>
         {preview ? (
@@ -148,6 +163,7 @@ function ImportSection({ kind, ws, facilityId }: { kind: Kind; ws: string; facil
           ) : null}
         </div>
       ) : null}
+      {job ? <JobProgress key={job.id} job={job} label={`Import of ${job.result && "fileName" in job.result ? String(job.result.fileName) : (file?.name ?? "the file")}`} onFinished={(j) => (j.status === "done" ? finished(j) : setJob(j))} /> : null}
       {done ? (
         <p role="status" className="text-sm text-ok">
           ✓ Imported from {done.fileName}:{" "}

@@ -1,5 +1,5 @@
 "use client";
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import {
   flexRender,
@@ -15,12 +15,14 @@ import {
   type VisibilityState,
 } from "@tanstack/react-table";
 import { Button } from "@/components/ui/button";
-import { api } from "@/lib/api-client";
+import { api, ApiError } from "@/lib/api-client";
+import { JobProgress, type JobDto } from "@/features/jobs";
 import { fmt, type UnitSystem } from "@/lib/units";
 import { markText } from "../changes";
 import { scheduleKindWord } from "../columns";
 import type { ScheduleDto, ScheduleRowDto } from "../schema";
 
+type Format = "xlsx" | "csv";
 const when = (iso: string) => new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" });
 
 function columns(s: UnitSystem): ColumnDef<ScheduleRowDto>[] {
@@ -70,25 +72,6 @@ function columns(s: UnitSystem): ColumnDef<ScheduleRowDto>[] {
   ];
 }
 
-async function download(url: string, onError: (m: string) => void) {
-  const res = await fetch(url);
-  if (!res.ok) {
-    const body = await res.json().catch(() => null);
-    onError(body?.error?.message ?? `Export failed (${res.status}).`);
-    return false;
-  }
-  const name = /filename="([^"]+)"/.exec(res.headers.get("content-disposition") ?? "")?.[1] ?? "schedule";
-  const blob = await res.blob();
-  const a = document.createElement("a");
-  a.href = URL.createObjectURL(blob);
-  a.download = name;
-  document.body.appendChild(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(a.href), 10_000);
-  return true;
-}
-
 export function ScheduleTable({ ws, facilityId, unitSystem, initial, canExport }: { ws: string; facilityId: string; unitSystem: UnitSystem; initial: ScheduleDto; canExport: boolean }) {
   const base = `/api/v1/workspaces/${ws}/facilities/${facilityId}`;
   const q = useQuery({ queryKey: ["schedule", facilityId], queryFn: () => api<ScheduleDto>(`${base}/schedule`), initialData: initial });
@@ -98,7 +81,21 @@ export function ScheduleTable({ ws, facilityId, unitSystem, initial, canExport }
   const [filter, setFilter] = useState("");
   const [grouping, setGrouping] = useState<GroupingState>([]);
   const [visibility, setVisibility] = useState<VisibilityState>({ rating: false, refrigerant: false });
-  const [exporting, setExporting] = useState<"xlsx" | "csv" | null>(null);
+  const [starting, setStarting] = useState<Format | null>(null);
+  const [exports, setExports] = useState<Partial<Record<Format, JobDto>>>({});
+  // The exports of this tab survive leaving the page: coming back shows their progress or download.
+  const storeKey = `rimeplan:exports:${facilityId}`;
+  useEffect(() => {
+    try {
+      const saved = JSON.parse(sessionStorage.getItem(storeKey) ?? "{}") as Partial<Record<Format, JobDto>>;
+      if (saved && typeof saved === "object") setExports((e) => ({ ...saved, ...e }));
+    } catch {
+      sessionStorage.removeItem(storeKey);
+    }
+  }, [storeKey]);
+  useEffect(() => {
+    if (Object.keys(exports).length) sessionStorage.setItem(storeKey, JSON.stringify(exports));
+  }, [exports, storeKey]);
   const [msg, setMsg] = useState<{ ok: boolean; text: string } | null>(null);
   const table = useReactTable({
     data: data.rows,
@@ -120,15 +117,23 @@ export function ScheduleTable({ ws, facilityId, unitSystem, initial, canExport }
   });
   const changed = data.rows.filter((r) => r.mark.status !== "same").length;
 
-  async function exportAs(kind: "xlsx" | "csv") {
-    setExporting(kind);
+  // An export runs as a job on the worker: the page stays usable while it is made.
+  async function exportAs(format: Format) {
+    setStarting(format);
     setMsg(null);
-    const ok = await download(`${base}/export.${kind}`, (m) => setMsg({ ok: false, text: m }));
-    setExporting(null);
-    if (ok) {
-      setMsg({ ok: true, text: `Exported ${data.rows.length} items as .${kind}; the export is recorded.` });
-      q.refetch();
+    try {
+      const r = await api<{ job: JobDto }>(`${base}/exports`, { method: "POST", json: { format } });
+      setExports((e) => ({ ...e, [format]: r.job }));
+    } catch (e) {
+      setMsg({ ok: false, text: e instanceof ApiError ? e.message : `The export could not be started (${String(e)}).` });
+    } finally {
+      setStarting(null);
     }
+  }
+  const running = (f: Format) => starting === f || (exports[f] !== undefined && !["done", "failed"].includes(exports[f]!.status));
+  function finished(format: Format, job: JobDto) {
+    setExports((e) => ({ ...e, [format]: job }));
+    if (job.status === "done") q.refetch();
   }
 
   return (
@@ -150,16 +155,19 @@ export function ScheduleTable({ ws, facilityId, unitSystem, initial, canExport }
           </a>
         {canExport ? (
           <div className="flex gap-2">
-            <Button variant="primary" onClick={() => exportAs("xlsx")} disabled={exporting !== null}>
-              {exporting === "xlsx" ? "Exporting…" : "Export to Excel (.xlsx)"}
+            <Button variant="primary" onClick={() => exportAs("xlsx")} disabled={running("xlsx")}>
+              Export to Excel (.xlsx)
             </Button>
-            <Button onClick={() => exportAs("csv")} disabled={exporting !== null}>
-              {exporting === "csv" ? "Exporting…" : "Export CSV"}
+            <Button onClick={() => exportAs("csv")} disabled={running("csv")}>
+              Export CSV
             </Button>
           </div>
         ) : null}
         </div>
       </header>
+      {(["xlsx", "csv"] as const).map((f) =>
+        exports[f] ? <JobProgress key={exports[f]!.id} job={exports[f]!} label={f === "xlsx" ? "Excel export" : "CSV export"} onFinished={(j) => finished(f, j)} /> : null,
+      )}
       {msg ? (
         <p role={msg.ok ? "status" : "alert"} className={`text-sm ${msg.ok ? "text-ok" : "text-danger"}`}>
           {msg.ok ? "✓" : "⚠"} {msg.text}

@@ -21,7 +21,7 @@ export const POST = route({
       text:
         `${user.name} (${user.email}) invited you to the workspace "${access!.workspace.name}" as ${body.role}: ` +
         `${ROLE_SUMMARY[body.role]}.\n\nAccept the invitation: ${link}\n\nThe link works once and expires in ${INVITE_DAYS} days.`,
-    });
+    }, { workspaceId: access!.workspace.id, userId: user.id });
     await audit({ workspaceId: access!.workspace.id, actorId: user.id, actorEmail: user.email, action: "member.invited", targetType: "invite", targetId: invite.id, detail: { email: body.email, role: body.role } });
     return created({ invite: { id: invite.id, email: invite.email, role: invite.role, expiresAt: invite.expiresAt.toISOString() } });
   },

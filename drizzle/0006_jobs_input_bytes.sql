@@ -1,0 +1,1 @@
+ALTER TABLE "jobs" ADD COLUMN "input_bytes" "bytea";
