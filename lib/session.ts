@@ -40,7 +40,7 @@ async function sessionIdOfRequest(): Promise<string | null> {
     }
     if (!token) continue;
     // A token we cannot decrypt, or an expired one, is no session.
-    const payload = await decodeSessionToken(token, env.AUTH_SECRET, name);
+    const payload = decodeSessionToken(token, env.AUTH_SECRET, name);
     if (typeof payload?.sid === "string" && UUID.test(payload.sid)) return payload.sid;
   }
   return null;
