@@ -64,7 +64,7 @@ for n in $INSTANCES; do
   done
   urls="http://localhost:$PORT_A"; [ "$n" -ge 2 ] && urls="$urls,http://localhost:$PORT_B"
   log "load test against $n instance(s); $(uptime | sed 's/.*load average/load average/')"
-  BENCH_URLS="$urls" BENCH_JSON="$RIMEPLAN_RUN_DIR/figures-$n.json" node_modules/.bin/tsx scripts/bench-api.ts || status=1
+  BENCH_URLS="$urls" BENCH_SERVER_PIDS="${PIDS[*]}" BENCH_DB="$DB" BENCH_JSON="$RIMEPLAN_RUN_DIR/figures-$n.json" node_modules/.bin/tsx scripts/bench-api.ts || status=1
   log "after: $(uptime | sed 's/.*load average/load average/')"
 done
 exit $status

@@ -14,6 +14,7 @@
  * Prints requests/s and p50/p95/p99 latency (from every response's own time) and the ratio of
  * calculate to trivial. Any answer other than 200 is counted and printed as an error.
  */
+import { readdirSync, readFileSync } from "node:fs";
 import { Agent, request } from "node:http";
 import autocannon from "autocannon";
 import { toEngineInput, type ModelDoc } from "@/features/facilities/engine-model";
@@ -56,6 +57,51 @@ async function signIn(base: string): Promise<string> {
   return cookie();
 }
 
+/**
+ * CPU time (ms) used so far by the app servers (BENCH_SERVER_PIDS) and by the PostgreSQL
+ * backends serving BENCH_DB (found by their process title), from /proc: a figure per request
+ * that other work on a shared machine does not change, unlike requests/s.
+ */
+const serverPids = (process.env.BENCH_SERVER_PIDS ?? "").split(/[ ,]+/).filter(Boolean);
+const benchDb = process.env.BENCH_DB ?? "";
+function ticksOf(pid: string): number {
+  try {
+    const f = readFileSync(`/proc/${pid}/stat`, "utf8");
+    const rest = f.slice(f.lastIndexOf(")") + 2).split(" ");
+    return Number(rest[11]) + Number(rest[12]); // utime + stime, in 1/100 s
+  } catch {
+    return 0;
+  }
+}
+function pgBackends(): string[] {
+  if (!benchDb) return [];
+  const out: string[] = [];
+  for (const pid of readdirSync("/proc")) {
+    if (!/^\d+$/.test(pid)) continue;
+    try {
+      const cmd = readFileSync(`/proc/${pid}/cmdline`, "utf8");
+      if (cmd.startsWith("postgres: ") && cmd.includes(` ${benchDb} `)) out.push(pid);
+    } catch {
+      /* gone */
+    }
+  }
+  return out;
+}
+/** CPU ms per process: app servers under "app:", database backends under "db:". */
+function cpuNow(): Map<string, number> {
+  const m = new Map<string, number>();
+  for (const p of serverPids) m.set(`app:${p}`, ticksOf(p) * 10);
+  for (const p of pgBackends()) m.set(`db:${p}`, ticksOf(p) * 10);
+  return m;
+}
+
+/** CPU used between two readings; a backend that started in between counts from zero, one that ended is lost. */
+function cpuUsed(before: Map<string, number>, after: Map<string, number>, kind: "app" | "db"): number {
+  let n = 0;
+  for (const [k, v] of after) if (k.startsWith(kind + ":")) n += v - (before.get(k) ?? 0);
+  return n;
+}
+
 interface Figures {
   label: string;
   connections: number | string;
@@ -65,11 +111,23 @@ interface Figures {
   p99: number;
   errors: number;
   total: number;
+  /** CPU ms per request in the app servers and in PostgreSQL, when their processes are known. */
+  appMs?: number;
+  dbMs?: number;
 }
 
 function pct(sorted: number[], p: number): number {
   if (sorted.length === 0) return Number.NaN;
   return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+async function measured(run: () => Promise<Figures>): Promise<Figures> {
+  const before = cpuNow();
+  const f = await run();
+  const after = cpuNow();
+  if (serverPids.length && f.total) f.appMs = cpuUsed(before, after, "app") / f.total;
+  if (benchDb && f.total) f.dbMs = cpuUsed(before, after, "db") / f.total;
+  return f;
 }
 
 async function load(label: string, opts: { path: string; method?: "GET" | "POST"; body?: string; cookie?: string; connections: number; overallRate?: number }): Promise<Figures> {
@@ -154,7 +212,8 @@ async function paced(label: string, opts: { path: string; cookie: string; rate: 
 }
 
 const row = (f: Figures) =>
-  `${f.label.padEnd(11)} ${String(f.connections).padStart(12)} ${f.rps.toFixed(1).padStart(9)} ${f.p50.toFixed(1).padStart(8)} ${f.p95.toFixed(1).padStart(8)} ${f.p99.toFixed(1).padStart(8)} ${String(f.errors).padStart(7)}`;
+  `${f.label.padEnd(11)} ${String(f.connections).padStart(12)} ${f.rps.toFixed(1).padStart(9)} ${f.p50.toFixed(1).padStart(8)} ${f.p95.toFixed(1).padStart(8)} ${f.p99.toFixed(1).padStart(8)} ${String(f.errors).padStart(7)}` +
+  `${f.appMs !== undefined ? f.appMs.toFixed(2).padStart(9) : ""}${f.dbMs !== undefined ? f.dbMs.toFixed(2).padStart(8) : ""}`;
 
 const cookie = await signIn(urls[0]);
 for (const u of urls.slice(1)) {
@@ -172,22 +231,23 @@ if (check.status !== 200) throw new Error(`calculate of the demo facility answer
 
 console.log(`API load test — ${urls.length} instance(s): ${urls.join(", ")}; ${seconds} s per case; Node ${process.version}`);
 console.log(`demo facility "${demo.name}": model document ${JSON.stringify(m.doc).length} bytes, calculate body ${calcBody.length} bytes`);
-console.log(`${"route".padEnd(11)} ${"connections".padStart(12)} ${"req/s".padStart(9)} ${"p50 ms".padStart(8)} ${"p95 ms".padStart(8)} ${"p99 ms".padStart(8)} ${"non-200".padStart(7)}`);
+console.log(`${"route".padEnd(11)} ${"connections".padStart(12)} ${"req/s".padStart(9)} ${"p50 ms".padStart(8)} ${"p95 ms".padStart(8)} ${"p99 ms".padStart(8)} ${"non-200".padStart(7)}${serverPids.length ? "  app CPU" : ""}${benchDb ? "  db CPU" : ""}`);
+if (serverPids.length || benchDb) console.log("(app CPU and db CPU: milliseconds of processor time per request in the app servers and in PostgreSQL)");
 
 // A short warm-up so the first case does not pay for Next's lazy route compilation.
 await load("warm-up", { path: modelPath, cookie, connections: 4 }).catch(() => undefined);
 
 const all: Figures[] = [];
 for (const connections of connectionsList) {
-  const trivial = routes.has("trivial") ? await load("trivial", { path: "/api/v1/health", connections }) : null;
-  const read = routes.has("read") ? await load("model read", { path: modelPath, cookie, connections }) : null;
-  const calc = routes.has("calculate") ? await load("calculate", { path: "/api/v1/calculate", method: "POST", body: calcBody, cookie, connections }) : null;
+  const trivial = routes.has("trivial") ? await measured(() => load("trivial", { path: "/api/v1/health", connections })) : null;
+  const read = routes.has("read") ? await measured(() => load("model read", { path: modelPath, cookie, connections })) : null;
+  const calc = routes.has("calculate") ? await measured(() => load("calculate", { path: "/api/v1/calculate", method: "POST", body: calcBody, cookie, connections })) : null;
   for (const f of [trivial, read, calc]) if (f) console.log(row(f));
   if (trivial && calc) console.log(`${"".padEnd(11)} calculate / trivial = ${(calc.rps / trivial.rps).toFixed(3)}`);
   all.push(...[trivial, read, calc].filter((f): f is Figures => f !== null));
 }
 if (fixedRate > 0 && routes.has("read")) {
-  const fixed = await paced("model read", { path: modelPath, cookie, rate: fixedRate });
+  const fixed = await measured(() => paced("model read", { path: modelPath, cookie, rate: fixedRate }));
   console.log(row(fixed));
   console.log(`target: model read p95 < 50 ms at ${fixedRate} requests/s — ${fixed.p95 < 50 && fixed.rps >= fixedRate * 0.95 ? "met" : "NOT met"} (served ${fixed.rps.toFixed(1)}/s, p95 ${fixed.p95.toFixed(1)} ms)`);
   all.push(fixed);
