@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
+import { and, eq, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { memberships, workspaces } from "@/db/schema";
 import { AppError } from "./errors";
@@ -83,6 +83,15 @@ export interface WorkspaceAccess {
   role: Role;
 }
 
+/** Asked on every workspace request: a prepared statement, parsed and planned once per connection. */
+const membershipOf = db
+  .select({ id: workspaces.id, slug: workspaces.slug, name: workspaces.name, role: memberships.role })
+  .from(memberships)
+  .innerJoin(workspaces, eq(workspaces.id, memberships.workspaceId))
+  .where(and(eq(memberships.userId, sql.placeholder("userId")), eq(workspaces.slug, sql.placeholder("slug"))))
+  .limit(1)
+  .prepare("rimeplan_membership_of");
+
 /**
  * Loads the caller's membership of a workspace (by slug) and checks the action.
  * Not a member → not_found (the workspace's existence is not revealed); member without the
@@ -91,12 +100,7 @@ export interface WorkspaceAccess {
 export async function authorize(userId: string, workspaceSlug: string, action: Action): Promise<WorkspaceAccess> {
   // No slug holds a NUL (PostgreSQL text cannot): such a page address names no workspace.
   if (workspaceSlug.includes("\0")) throw new AppError("not_found", "Workspace not found, or you are not a member of it.");
-  const rows = await db
-    .select({ id: workspaces.id, slug: workspaces.slug, name: workspaces.name, role: memberships.role })
-    .from(memberships)
-    .innerJoin(workspaces, eq(workspaces.id, memberships.workspaceId))
-    .where(and(eq(memberships.userId, userId), eq(workspaces.slug, workspaceSlug)))
-    .limit(1);
+  const rows = await membershipOf.execute({ userId, slug: workspaceSlug });
   const row = rows[0];
   if (!row) throw new AppError("not_found", "Workspace not found, or you are not a member of it.");
   if (!can(row.role, action)) {

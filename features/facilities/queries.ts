@@ -62,12 +62,16 @@ export async function listFacilities(workspaceId: string, archived: boolean): Pr
   return rows.map(toDto);
 }
 
+/** Read on every model read and save: a prepared statement, parsed and planned once per connection. */
+const facilityRow = db
+  .select()
+  .from(facilities)
+  .where(and(eq(facilities.workspaceId, sql.placeholder("workspaceId")), eq(facilities.id, sql.placeholder("id"))))
+  .limit(1)
+  .prepare("rimeplan_facility_row");
+
 export async function getFacilityRow(workspaceId: string, id: string): Promise<Row> {
-  const [row] = await db
-    .select()
-    .from(facilities)
-    .where(and(eq(facilities.workspaceId, workspaceId), eq(facilities.id, id)))
-    .limit(1);
+  const [row] = await facilityRow.execute({ workspaceId, id });
   if (!row) throw new AppError("not_found", "Facility not found in this workspace.");
   return row;
 }
