@@ -35,7 +35,7 @@ async function connect(url: string) {
 }
 
 const dir = `/tmp/rimeplan-conv-${randomUUID().slice(0, 8)}`;
-let env: NodeJS.ProcessEnv = {};
+let env = {} as NodeJS.ProcessEnv;
 const sh = (script: string) => run("bash", ["-c", `source scripts/lib.sh && ${script}`], { cwd: root, env, timeout: 120_000 });
 
 afterAll(async () => {

@@ -1,6 +1,6 @@
 import { route } from "@/lib/api";
 import { facilityParams } from "@/features/facilities/schema";
-import { importRooms, MAX_IMPORT_REQUEST_BYTES, MAX_IMPORT_REQUEST_BYTES, readUpload } from "@/features/import/queries";
+import { importRooms, MAX_IMPORT_REQUEST_BYTES, readUpload } from "@/features/import/queries";
 import { enqueueImport } from "@/features/import/job";
 import { accepted } from "@/features/jobs/queries";
 
