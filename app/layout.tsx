@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import type { ReactNode } from "react";
+import { headers } from "next/headers";
 import "./globals.css";
 import { QueryProvider } from "@/components/providers/query-provider";
 import { currentUser } from "@/lib/session";
@@ -15,10 +16,12 @@ const themeScript = `(function(){try{var t=document.documentElement.dataset.them
 export default async function RootLayout({ children }: { children: ReactNode }) {
   const user = await currentUser().catch(() => null);
   const theme = user?.theme ?? "system";
+  // proxy.ts puts a fresh nonce in the page's Content-Security-Policy; our one inline script carries it.
+  const nonce = (await headers()).get("x-nonce") ?? undefined;
   return (
     <html lang="en" data-theme={theme} className={theme === "dark" ? "dark" : ""} suppressHydrationWarning>
       <head>
-        <script dangerouslySetInnerHTML={{ __html: themeScript }} />
+        <script nonce={nonce} dangerouslySetInnerHTML={{ __html: themeScript }} />
       </head>
       <body className="min-h-screen antialiased">
         <QueryProvider>{children}</QueryProvider>
