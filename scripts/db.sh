@@ -27,6 +27,10 @@ case "$cmd" in
     file="${1:?usage: db:restore <file> [database]}"; target="${2:-}"
     if [ -n "$target" ]; then url="$(url_for_db "$target")"; else url="$(app_url)"; target="$(node -e 'console.log(new URL(process.argv[1]).pathname.slice(1))' "$url")"; fi
     [ -n "$external" ] || pg_create_db "$target"
+    # The job queue's schema uses partitioned tables, which pg_restore --clean cannot drop piece
+    # by piece ("cannot drop inherited constraint"); drop it whole first. The dump brings it back
+    # (or the queue recreates it at its next start, for a dump taken before it existed).
+    psql "$url" -v ON_ERROR_STOP=1 -qAt -c "drop schema if exists pgboss cascade" >/dev/null
     # --no-owner: the restored objects belong to the role restoring them (the app's role).
     pg_restore --clean --if-exists --no-owner --exit-on-error --dbname="$url" "$file"
     log "restored $file into database $target" ;;
