@@ -264,13 +264,14 @@ const SEND: Record<keyof typeof COVERED, Send> = {
   [`GET ${F}/results`]: async (c) => st(await c.get(`${f()}/results`)),
   [`GET ${F}/revisions`]: async (c) => st(await c.get(`${f()}/revisions`)),
   [`POST ${F}/revisions/[n]/issue`]: async (c, who) => {
-    // a fresh unissued revision to issue: the owner restores revision 1 as a new version
-    const r = await ctx.owner.post(`${s()}/revisions/1/restore`);
-    expect(r.status(), await r.text()).toBe(200);
-    const { version } = await r.json();
-    return st(await c.post(`${s()}/revisions/${version}/issue`, { data: { letter: letters[who], status: "for comment", checkedBy: "Matrix checker" } }));
+    // A fresh unissued revision to issue: the owner restores revision 1 (the empty model) and then
+    // revision 2 (the demo model), so the second always makes a new version with the demo model.
+    for (const n of [1, 2]) expect((await ctx.owner.post(`${s()}/revisions/${n}/restore`)).status()).toBe(200);
+    const { current } = await (await ctx.owner.get(`${s()}/revisions`)).json();
+    return st(await c.post(`${s()}/revisions/${current}/issue`, { data: { letter: letters[who], status: "for comment", checkedBy: "Matrix checker" } }));
   },
-  [`POST ${F}/revisions/[n]/restore`]: async (c) => st(await c.post(`${s()}/revisions/1/restore`)),
+  // revision 2 holds the demo model with its installed plant, which the later rows need
+  [`POST ${F}/revisions/[n]/restore`]: async (c) => st(await c.post(`${s()}/revisions/2/restore`)),
   [`GET ${F}/layout`]: async (c) => st(await c.get(`${f()}/layout`)),
   [`PUT ${F}/layout`]: async (c) => st(await c.put(`${s()}/layout`, { data: { positions: { "room:apples": { x: 12, y: 34 } } } })),
   [`GET ${F}/layout/background`]: async (c) => st(await c.get(`${s()}/layout/background`)),
@@ -281,8 +282,8 @@ const SEND: Record<keyof typeof COVERED, Send> = {
   },
   [`GET ${F}/installed`]: async (c) => st(await c.get(`${s()}/installed`)),
   [`PUT ${F}/installed`]: async (c) => {
-    const cur = await (await ctx.owner.get(`${s()}/installed`)).json();
-    return st(await c.put(`${s()}/installed`, { data: { baseVersion: cur.version, installed: cur.installed } }));
+    const { version } = await (await ctx.owner.get(`${s()}/installed`)).json();
+    return st(await c.put(`${s()}/installed`, { data: { baseVersion: version, installed: fixture("lib/engine/stocking/fixtures/harrowfield-installed.json") } }));
   },
   [`POST ${F}/import/rooms`]: async (c) =>
     st(await c.post(`${s()}/import/rooms`, { multipart: { file: { name: "rooms.csv", mimeType: "text/csv", buffer: Buffer.from(ROOMS_CSV) }, mode: "preview" } })),
