@@ -380,7 +380,7 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
           const room = cctx.rooms.get(e.roomId);
           key += `${e.id}@${prep.evapIndex.get(e.id)}:${e.dutyW}:${e.tdK}:${hashOf(e.feed)}:${room?.setPointC}/${room?.rhPct},`;
         }
-        for (const l of lows) key += `<${l.id}:${done.get(l.id)?.heatRejectedW ?? 0}`;
+        for (const l of lows) key += `<${l.id}:${done.get(l.id)?.heatRejectedW ?? 0}@${done.get(l.id)?.entropySinkC ?? 0}`;
         let entry = circuitMemo.get(key);
         if (!entry) {
           const w: PlantWarning[] = [];

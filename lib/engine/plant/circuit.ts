@@ -3,9 +3,10 @@
  * serves, its cycle, and the first- and second-law checks on the result (DOMAIN.md §2).
  */
 import { ThermoRangeError, type Fluid, type FluidId } from "../thermo/types";
-import { DISCHARGE_LIMIT_C, PRESSURE_RATIO_LIMIT } from "./compressor";
+import { DISCHARGE_EXTREME_C, DISCHARGE_LIMIT_C, PRESSURE_RATIO_LIMIT } from "./compressor";
 import {
   conventionPressure,
+  SUBCRITICAL_MARGIN_K,
   singleStageCycle,
   transcriticalCycle,
   twoStageCycle,
@@ -33,10 +34,13 @@ export interface Ambient {
 export type WarningCode =
   | "PRESSURE_RATIO_HIGH"
   | "DISCHARGE_TEMP_HIGH"
+  /** Discharge far above what compressors and oil allow (the result is computed, but no machine runs there). */
+  | "DISCHARGE_TEMP_EXTREME"
   | "TD_HIGH_FOR_HUMIDITY"
   | "EVAPORATING_NEAR_FLUID_LIMIT"
   | "SUCTION_BELOW_ATMOSPHERIC"
   | "TRANSCRITICAL_OPERATION"
+  | "SUBCRITICAL_OPERATION"
   | "CO2_STANDSTILL_SUPERCRITICAL"
   | "ROOM_WITHOUT_EVAPORATOR"
   | "CIRCUIT_NO_LOAD"
@@ -87,6 +91,25 @@ export interface CircuitResult {
   /** Heat sink the condenser rejects to, and its temperature (ambient, or the high stage). */
   sinkKind: "dry-bulb" | "wet-bulb" | "water" | "cascade";
   sinkC: number;
+  /**
+   * Temperature at which the rejected heat leaves in the entropy bookkeeping, °C: sinkC,
+   * except for a cascade low stage, whose heat leaves through its own desuperheating and
+   * condensing stream, taken at that stream's thermodynamic mean temperature Δh/Δs (the
+   * high stage counts the cascade exchanger's entropy generation against it).
+   */
+  entropySinkC: number;
+  /** R744 on a gas cooler: the mode at design, the switch-over and how the high side was set. */
+  r744?: {
+    mode: "transcritical" | "subcritical";
+    /** Gas-cooler outlet temperature at or below which the circuit condenses, °C. */
+    switchOverC: number;
+    /** The sink temperature (ambient dry bulb for an air-cooled gas cooler) of that switch-over, °C. */
+    switchOverSinkC: number;
+    highSide: "optimised" | "set" | "condensing";
+    /** Optimiser bounds, Pa (when optimised). */
+    searchFromPa?: number;
+    searchToPa?: number;
+  };
   /** Refrigeration duty from the rooms and cascade exchangers, W (refrigeration, not electrical). */
   refrigerationW: number;
   /** The rooms' part of refrigerationW (cascade exchangers excluded), W. */
@@ -327,13 +350,18 @@ function computeOneCircuit(
     roomEntropyW_K += e.dutyW / (room.setPointC + K0);
     evapTemps.push({ tC: e.evaporatingC, field: `plant.evaporators.${evapIndex.get(e.id)}.tdK` });
   }
+  let cascadeField: string | undefined;
   for (const lo of cascades) {
     const hr = lo.heatRejection;
     const low = done.get(lo.id);
     if (!low || hr.to !== "circuit") continue;
     const tC = hr.condensingC - hr.approachK;
-    reservoirs.push({ heatW: low.heatRejectedW, tK: tC + K0 });
-    evapTemps.push({ tC, field: `plant.circuits.${ctx.plant.circuits.indexOf(lo)}.heatRejection.approachK` });
+    // The source is the low stage's desuperheating and condensing refrigerant, at that
+    // stream's own mean temperature (not a reservoir at this stage's evaporating temperature).
+    reservoirs.push({ heatW: low.heatRejectedW, tK: low.entropySinkC + K0, kind: "cascade" });
+    const field = `plant.circuits.${ctx.plant.circuits.indexOf(lo)}.heatRejection.approachK`;
+    cascadeField ??= field;
+    evapTemps.push({ tC, field });
   }
   const refrigerationW = reservoirs.reduce((a, r) => a + r.heatW, 0);
   if (refrigerationW <= 0) {
@@ -411,13 +439,16 @@ function computeOneCircuit(
     coldReservoirs: reservoirs,
     sinkK: sink.sinkC + K0,
     intermediateK: c.intermediateC === undefined ? undefined : c.intermediateC + K0,
+    sinkAtStreamMeanT: hr.to === "circuit",
+    highSidePa: typeof c.highSidePa === "number" ? c.highSidePa : undefined,
+    switchOverK: c.switchOverC === undefined ? undefined : c.switchOverC + K0,
   };
   let cycle: CycleResult;
   try {
     cycle = c.arrangement === "two-stage" ? twoStageCycle(spec) : transcritical ? transcriticalCycle(spec) : singleStageCycle(spec);
   } catch (err) {
     if (err instanceof PlantError) {
-      const field = err.field === "intermediateC" || err.field === "arrangement" ? `${path}.${err.field}` : err.field.startsWith("plant.") ? err.field : condensingField;
+      const field = err.field === "intermediateC" || err.field === "arrangement" || err.field === "highSidePa" ? `${path}.${err.field}` : err.field.startsWith("plant.") ? err.field : condensingField;
       throw new PlantError(err.code, `${c.tag}: ${err.message}`, field, err.allowed);
     }
     // Suction was checked above, so a property-range error here comes from the high side.
@@ -438,16 +469,18 @@ function computeOneCircuit(
 
   const byComponentW_K = cycle.entropyW_K;
   const sRes = reservoirs.reduce((a, r) => a + r.heatW / r.tK, 0);
-  const clausiusW_K = heatRejectedW / spec.sinkK - sRes;
+  // The heat leaves at the bookkeeping sink (a cascade low stage: its stream's Δh/Δs).
+  const entropySinkK = cycle.sinkK;
+  const clausiusW_K = heatRejectedW / entropySinkK - sRes;
   let totalW_K = 0;
-  const scale = heatRejectedW / spec.sinkK;
+  const scale = heatRejectedW / entropySinkK;
   for (const [k, v] of Object.entries(byComponentW_K) as [EntropyComponent, number][]) {
     totalW_K += v;
     if (!(v >= -1e-6 * scale))
       throw new PlantError(
         "SECOND_LAW_VIOLATION",
         `${c.tag}: negative entropy generation in the ${k} (${v.toExponential(3)} W/K): the temperatures given make heat flow from cold to hot`,
-        blame(k, path, sink.field, coldest.field),
+        k === "cascadeExchanger" && cascadeField ? cascadeField : blame(k, path, sink.field, coldest.field),
       );
   }
   const workW = cycle.shaftPowerW + pumpPowerW;
@@ -480,7 +513,15 @@ function computeOneCircuit(
           ref,
         });
   const dischargeLimit = DISCHARGE_LIMIT_C[c.compressor.type];
-  if (cycle.dischargeTempK - K0 > dischargeLimit)
+  const dischargeC = cycle.dischargeTempK - K0;
+  if (dischargeC > DISCHARGE_EXTREME_C)
+    warnings.push({
+      code: "DISCHARGE_TEMP_EXTREME",
+      severity: "warning",
+      message: `discharge ${dischargeC.toFixed(0)} °C is far above what any compressor and its oil allow (about ${DISCHARGE_EXTREME_C} °C at most; ${dischargeLimit} °C for a ${c.compressor.type}): the figures are computed, but no machine runs there. ${c.arrangement === "two-stage" ? "Lower the stage ratios (intermediate pressure) or use a cascade" : "Use two-stage compression with an intercooler (or a cascade)"}`,
+      ref,
+    });
+  else if (dischargeC > dischargeLimit)
     warnings.push({
       code: "DISCHARGE_TEMP_HIGH",
       severity: "warning",
@@ -494,13 +535,34 @@ function computeOneCircuit(
       message: `suction pressure ${(cycle.evaporatingPa / 1000).toFixed(0)} kPa(a) is below atmospheric: air and moisture can leak in; plan purging`,
       ref,
     });
-  if (cycle.arrangement === "transcritical")
-    warnings.push({
-      code: "TRANSCRITICAL_OPERATION",
-      severity: "info",
-      message: `transcritical operation at design: gas cooler at ${(cycle.condensingPa / 1e5).toFixed(1)} bar(a), outlet ${sink.condensingC.toFixed(1)} °C`,
-      ref,
-    });
+  let r744: CircuitResult["r744"];
+  if (transcritical) {
+    const switchOverC = Math.min(c.switchOverC ?? fluid.meta.criticalTempK - K0 - SUBCRITICAL_MARGIN_K, fluid.meta.criticalTempK - K0 - 1);
+    const switchOverSinkC = switchOverC - (sink.condensingC - sink.sinkC);
+    const sinkWord = sink.sinkKind === "dry-bulb" ? "ambient" : sink.sinkKind === "wet-bulb" ? "wet bulb" : sink.sinkKind === "water" ? "water" : "sink";
+    r744 = {
+      mode: cycle.arrangement === "transcritical" ? "transcritical" : "subcritical",
+      switchOverC,
+      switchOverSinkC,
+      highSide: cycle.arrangement !== "transcritical" ? "condensing" : cycle.highSide?.mode === "set" ? "set" : "optimised",
+      searchFromPa: cycle.highSide?.searchFromPa,
+      searchToPa: cycle.highSide?.searchToPa,
+    };
+    if (cycle.arrangement === "transcritical")
+      warnings.push({
+        code: "TRANSCRITICAL_OPERATION",
+        severity: "info",
+        message: `transcritical operation at design: gas cooler at ${(cycle.condensingPa / 1e5).toFixed(1)} bar(a) (${r744.highSide === "set" ? "high-pressure control set point" : "optimised for the best COP"}), outlet ${sink.condensingC.toFixed(1)} °C; it condenses (subcritical) when the outlet is at or below ${switchOverC.toFixed(1)} °C, i.e. ${sinkWord} at or below ${switchOverSinkC.toFixed(1)} °C`,
+        ref,
+      });
+    else
+      warnings.push({
+        code: "SUBCRITICAL_OPERATION",
+        severity: "info",
+        message: `subcritical at design: condensing at ${sink.condensingC.toFixed(1)} °C into a liquid receiver, since the ${sinkWord} ${sink.sinkC.toFixed(1)} °C is at or below the switch-over ${switchOverSinkC.toFixed(1)} °C (gas-cooler outlet ${switchOverC.toFixed(1)} °C)${typeof c.highSidePa === "number" ? "; the high-pressure set point applies only in transcritical operation" : ""}`,
+        ref,
+      });
+  }
   for (const e of evaps)
     if (e.evaporatingC - suctionC > c.suctionLineAllowanceK + 3)
       warnings.push({
@@ -569,6 +631,8 @@ function computeOneCircuit(
     subcoolingK: c.subcoolingK,
     sinkKind: sink.sinkKind,
     sinkC: sink.sinkC,
+    entropySinkC: entropySinkK - K0,
+    r744,
     refrigerationW,
     evaporatorRoomDutyW,
     roomEntropyW_K,

@@ -26,6 +26,14 @@ export const DISCHARGE_LIMIT_C: Record<CompressorType, number> = {
   scroll: 120,
 };
 
+/**
+ * Discharge temperature above which no compressor and oil are fit to run, °C: ammonia
+ * practice keeps the discharge to about 120–150 °C because the oil breaks down and cokes
+ * on the valves above it (common practice, from memory). Above this the plant reports the
+ * cycle with a prominent warning instead of sizing it quietly.
+ */
+export const DISCHARGE_EXTREME_C = 150;
+
 /** Single-stage pressure ratio above which two stages or a cascade is the usual answer (common practice). */
 export const PRESSURE_RATIO_LIMIT: Record<CompressorType, number> = {
   reciprocating: 8,

@@ -36,10 +36,15 @@ export interface StageResult {
   oilCoolerW: number;
 }
 
-/** A heat source the evaporators draw from: a room's air or a cascade exchanger. */
+/**
+ * A heat source the evaporators draw from: a room's air, or (kind "cascade") a low stage's
+ * desuperheating and condensing refrigerant, taken at that stream's thermodynamic mean
+ * temperature Δh/Δs.
+ */
 export interface ColdReservoir {
   heatW: number;
   tK: number;
+  kind?: "room" | "cascade";
 }
 
 export interface CycleSpec {
@@ -59,6 +64,16 @@ export interface CycleSpec {
   sinkK: number;
   /** Two-stage: intermediate saturation temperature, K; default the geometric-mean pressure. */
   intermediateK?: number;
+  /**
+   * Cascade low stage: the heat leaves through the desuperheating and condensing stream
+   * itself, so the second-law bookkeeping takes that stream's thermodynamic mean
+   * temperature Δh/Δs as the sink (reported as `sinkK`) instead of `sinkK` above.
+   */
+  sinkAtStreamMeanT?: boolean;
+  /** R744: set point of the high-pressure control, Pa; undefined = optimise for the best COP. */
+  highSidePa?: number;
+  /** R744: gas-cooler outlet temperature at or below which the circuit condenses, K (default critical − 5 K). */
+  switchOverK?: number;
 }
 
 export type EntropyComponent =
@@ -70,7 +85,9 @@ export type EntropyComponent =
   | "lowStageExpansion"
   | "highStageExpansion"
   | "intercooler"
-  | "evaporator";
+  | "evaporator"
+  /** A cascade exchanger, seen from the high stage evaporating in it (low stage's stream as the source). */
+  | "cascadeExchanger";
 
 export interface CycleResult {
   arrangement: "single-stage" | "two-stage" | "transcritical" | "subcritical-r744";
@@ -95,6 +112,10 @@ export interface CycleResult {
   pressureRatio: number;
   /** Entropy generated per component, W/K (reservoir terms included). */
   entropyW_K: Partial<Record<EntropyComponent, number>>;
+  /** Temperature the rejected heat leaves at in the entropy bookkeeping, K (spec.sinkK, or the stream mean). */
+  sinkK: number;
+  /** R744: how the high-side pressure was set, and the search bounds of the optimiser, Pa. */
+  highSide?: { mode: "optimised" | "set"; searchFromPa?: number; searchToPa?: number };
 }
 
 /** Which pressure a saturation state at a convention temperature stands for. */
@@ -185,10 +206,37 @@ function stage(name: StageResult["name"], m: number, inlet: PhaseProps, c: Compr
   };
 }
 
-function reservoirEntropy(res: ColdReservoir[]): number {
-  let s = 0;
-  for (const r of res) s += r.heatW / r.tK;
-  return s;
+/**
+ * Entropy generated where the refrigerant takes up heat, given its entropy gain there
+ * ṁ·(s_out − s_in). Room evaporators and cascade exchangers share the same inlet and outlet
+ * states, so the refrigerant's gain splits in proportion to the heat each takes up; each
+ * part less the entropy its source gives up (Q/T of the room air, or of the low stage's
+ * stream at its mean temperature) is that component's generation. Pump heat has no source
+ * outside the circuit and stays with the evaporators.
+ */
+function coldSideEntropy(spec: CycleSpec, gainW_K: number): Partial<Record<EntropyComponent, number>> {
+  let qCascade = 0;
+  let sCascade = 0;
+  let sRooms = 0;
+  for (const r of spec.coldReservoirs) {
+    if (r.kind === "cascade") {
+      qCascade += r.heatW;
+      sCascade += r.heatW / r.tK;
+    } else sRooms += r.heatW / r.tK;
+  }
+  if (qCascade <= 0) return { evaporator: gainW_K - sRooms };
+  const f = Math.min(1, qCascade / spec.loadW);
+  const out: Partial<Record<EntropyComponent, number>> = { cascadeExchanger: f * gainW_K - sCascade };
+  if (f < 1) out.evaporator = (1 - f) * gainW_K - sRooms;
+  return out;
+}
+
+/** The sink temperature of the entropy bookkeeping: the set sink, or the rejecting stream's Δh/Δs. */
+function sinkOf(spec: CycleSpec, rejectedW: number, streamDropW_K: number): number {
+  if (!spec.sinkAtStreamMeanT) return spec.sinkK;
+  if (!(streamDropW_K > 0 && rejectedW > 0))
+    throw new PlantError("INPUT_OUT_OF_RANGE", "the cascade low stage rejects no heat: its condensing temperature is not above its suction", "condensingC");
+  return rejectedW / streamDropW_K;
 }
 
 function requireLiftPositive(field: string, evapK: number, condK: number): void {
@@ -234,13 +282,13 @@ function cycleAtPressures(
   const m = spec.loadW / qJkg;
   const st = stage("single", m, s1, comp);
   const condenserHeatW = m * (comp.out.hJkg - s3.hJkg);
-  const sRes = reservoirEntropy(spec.coldReservoirs);
+  const sinkK = sinkOf(spec, condenserHeatW, m * (comp.out.sJkgK - s3.sJkgK));
   const entropyW_K: CycleResult["entropyW_K"] = {
     // Compressor and its oil cooler together: the oil takes heat out at the sink.
-    compressor: m * (comp.out.sJkgK - s1.sJkgK) + st.oilCoolerW / spec.sinkK,
-    condenser: m * (s3.sJkgK - comp.out.sJkgK) + condenserHeatW / spec.sinkK,
+    compressor: m * (comp.out.sJkgK - s1.sJkgK) + st.oilCoolerW / sinkK,
+    condenser: m * (s3.sJkgK - comp.out.sJkgK) + condenserHeatW / sinkK,
     expansion: m * (s4.sJkgK - s3.sJkgK),
-    evaporator: m * (s1.sJkgK - s4.sJkgK) - sRes,
+    ...coldSideEntropy(spec, m * (s1.sJkgK - s4.sJkgK)),
   };
   const highLabel = arrangement === "transcritical" ? "gas-cooler outlet" : "condenser outlet";
   return {
@@ -263,6 +311,7 @@ function cycleAtPressures(
     dischargeTempK: comp.out.tK,
     pressureRatio: comp.ratio,
     entropyW_K,
+    sinkK,
   };
 }
 
@@ -311,14 +360,15 @@ export function twoStageCycle(spec: CycleSpec): CycleResult {
   const low = stage("low", mL, s1, lp);
   const high = stage("high", mH, s3, hp);
   const condenserHeatW = mH * (hp.out.hJkg - s5.hJkg);
+  const sinkK = sinkOf(spec, condenserHeatW, mH * (hp.out.sJkgK - s5.sJkgK));
   const entropyW_K: CycleResult["entropyW_K"] = {
-    lowStageCompressor: mL * (lp.out.sJkgK - s1.sJkgK) + low.oilCoolerW / spec.sinkK,
-    highStageCompressor: mH * (hp.out.sJkgK - s3.sJkgK) + high.oilCoolerW / spec.sinkK,
+    lowStageCompressor: mL * (lp.out.sJkgK - s1.sJkgK) + low.oilCoolerW / sinkK,
+    highStageCompressor: mH * (hp.out.sJkgK - s3.sJkgK) + high.oilCoolerW / sinkK,
     intercooler: mH * s3.sJkgK + mL * s7.sJkgK - mL * lp.out.sJkgK - mH * s6.sJkgK,
-    condenser: mH * (s5.sJkgK - hp.out.sJkgK) + condenserHeatW / spec.sinkK,
+    condenser: mH * (s5.sJkgK - hp.out.sJkgK) + condenserHeatW / sinkK,
     highStageExpansion: mH * (s6.sJkgK - s5.sJkgK),
     lowStageExpansion: mL * (s8.sJkgK - s7.sJkgK),
-    evaporator: mL * (s1.sJkgK - s8.sJkgK) - reservoirEntropy(spec.coldReservoirs),
+    ...coldSideEntropy(spec, mL * (s1.sJkgK - s8.sJkgK)),
   };
   const oil = low.oilCoolerW + high.oilCoolerW;
   return {
@@ -346,44 +396,94 @@ export function twoStageCycle(spec: CycleSpec): CycleResult {
     dischargeTempK: Math.max(lp.out.tK, hp.out.tK),
     pressureRatio: pC / pE,
     entropyW_K,
+    sinkK,
   };
 }
 
-/** Margin below the critical temperature under which an R744 circuit condenses, K (common practice). */
+/**
+ * Margin below the critical temperature at or under which an R744 circuit condenses by
+ * default, K: a gas-cooler outlet of about 26 °C and below (common practice for the
+ * switch-over of CO2 plant between condensing and gas-cooler mode, from memory; settable per
+ * circuit as `switchOverC`).
+ */
 export const SUBCRITICAL_MARGIN_K = 5;
 
+/** Highest high-side pressure the optimiser searches and a set point may take, Pa (common HP-side design limit). */
+export const R744_HIGH_SIDE_MAX_PA = 14e6;
+
 /**
- * R744 with a gas cooler. When the gas-cooler outlet temperature is at least 5 K below the
- * critical temperature the cycle condenses (subcritical, condensing at that temperature).
- * Otherwise it runs transcritical: the high-side pressure p is chosen to maximise
- * COP(p) = (h1 − h3(p, T_gco)) / (h2(p) − h1), the optimum of Kauf / Liao et al. found
- * numerically by golden-section search between 1.02·p_crit and 14 MPa (or the fluid's
- * limit) to 5 kPa.
+ * The lowest high-side pressure that makes sense for a gas-cooler outlet temperature: below
+ * the critical temperature, just above the saturation pressure there (the outlet is then
+ * liquid, as when condensing); at or above it, the critical pressure (below it the outlet
+ * would be gas and the valve would expand gas).
+ */
+export function lowestHighSidePa(fluid: Fluid, outK: number): number {
+  if (outK < fluid.meta.criticalTempK - 0.2) return fluid.saturationAtT(outK, "dew").pDewPa * 1.0005;
+  return fluid.meta.criticalPressurePa;
+}
+
+/**
+ * R744 with a gas cooler. When the gas-cooler outlet temperature is at or below the
+ * switch-over (default critical − 5 K) the cycle condenses (subcritical, condensing at that
+ * temperature into a liquid receiver). Otherwise it runs transcritical at the set point of
+ * the high-pressure control when one is given, else at the pressure p that maximises
+ * COP(p) = (h1 − h3(p, T_gco)) / (h2(p) − h1) (the optimum of Kauf 1999 / Liao, Zhao &
+ * Jakobsen 2000, found numerically): a scan of 24 pressures from the lowest sensible one
+ * (`lowestHighSidePa`: just above the saturation pressure when the outlet is below the
+ * critical temperature) to 14 MPa, then golden-section search to 1 kPa in the bracket of
+ * the best scan point.
  */
 export function transcriticalCycle(spec: CycleSpec): CycleResult {
   const { fluid } = spec;
   const tcK = fluid.meta.criticalTempK;
   const outK = spec.condensingK;
-  if (outK <= tcK - SUBCRITICAL_MARGIN_K) {
+  const switchK = Math.min(spec.switchOverK ?? tcK - SUBCRITICAL_MARGIN_K, tcK - 1);
+  if (outK <= switchK) {
     return { ...singleStageCycle(spec), arrangement: "subcritical-r744" };
   }
   requireLiftPositive("approachK", spec.evaporatingK, outK);
   const satE = fluid.saturationAtT(spec.evaporatingK, spec.convention);
   const pE = conventionPressure(satE, spec.convention);
+  const lowest = lowestHighSidePa(fluid, outK);
+  const highest = Math.min(R744_HIGH_SIDE_MAX_PA, fluid.range.pMaxPa);
+  if (spec.highSidePa !== undefined) {
+    if (!(spec.highSidePa >= lowest && spec.highSidePa <= highest))
+      throw new PlantError(
+        "INPUT_OUT_OF_RANGE",
+        `the high-side set point ${(spec.highSidePa / 1e5).toFixed(1)} bar(a) is outside ${(lowest / 1e5).toFixed(1)}…${(highest / 1e5).toFixed(0)} bar(a) for a gas-cooler outlet of ${(outK - 273.15).toFixed(1)} °C` +
+          (outK < tcK ? " (the lower end is the saturation pressure there: below it the CO2 cannot leave the gas cooler as liquid)" : " (below the critical pressure the outlet would be gas)"),
+        "highSidePa",
+        { min: lowest, max: highest, unit: "Pa" },
+      );
+    const s3 = fluid.statePT(spec.highSidePa, outK);
+    return { ...cycleAtPressures(spec, pE, spec.highSidePa, satE, s3, "transcritical"), highSide: { mode: "set" } };
+  }
   const s1 = suctionState(fluid, satE, pE, spec.superheatK);
   const cop = (p: number) => {
     const c = compress(fluid, s1, p, spec.compressor);
     const h3 = fluid.statePT(p, outK).hJkg;
     return (s1.hJkg - h3) / c.wJkg;
   };
-  let a = 1.02 * fluid.meta.criticalPressurePa;
-  let b = Math.min(14e6, fluid.range.pMaxPa);
+  // Coarse scan first: near the critical point COP(p) rises steeply and a golden section
+  // alone could settle on the wrong side of a kink; the scan brackets the maximum.
+  const n = 24;
+  const ps: number[] = [];
+  const fs: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const p = lowest + ((highest - lowest) * i) / (n - 1);
+    ps.push(p);
+    fs.push(cop(p));
+  }
+  let best = 0;
+  for (let i = 1; i < n; i++) if (fs[i] > fs[best]) best = i;
+  let a = ps[Math.max(0, best - 1)];
+  let b = ps[Math.min(n - 1, best + 1)];
   const phi = (Math.sqrt(5) - 1) / 2;
   let x1 = b - phi * (b - a);
   let x2 = a + phi * (b - a);
   let f1 = cop(x1);
   let f2 = cop(x2);
-  while (b - a > 5e3) {
+  while (b - a > 1e3) {
     if (f1 < f2) {
       a = x1;
       x1 = x2;
@@ -398,7 +498,16 @@ export function transcriticalCycle(spec: CycleSpec): CycleResult {
       f1 = cop(x1);
     }
   }
-  const pGc = (a + b) / 2;
+  // The bracket's ends are candidates too (the optimum may sit at the lowest sensible pressure).
+  let pGc = (a + b) / 2;
+  let fBest = cop(pGc);
+  for (const p of [ps[Math.max(0, best - 1)], ps[Math.min(n - 1, best + 1)], ps[best]]) {
+    const f = cop(p);
+    if (f > fBest) {
+      fBest = f;
+      pGc = p;
+    }
+  }
   const s3 = fluid.statePT(pGc, outK);
-  return cycleAtPressures(spec, pE, pGc, satE, s3, "transcritical");
+  return { ...cycleAtPressures(spec, pE, pGc, satE, s3, "transcritical"), highSide: { mode: "optimised", searchFromPa: lowest, searchToPa: highest } };
 }

@@ -27,6 +27,8 @@ const intRange = (lo: number, hi: number) => {
   return z.int(msg).min(lo, msg).max(hi, msg);
 };
 
+const HIGH_SIDE_MSG = 'must be "optimise" or a pressure between 5000000 and 14000000 Pa (50–140 bar(a))';
+
 const id = z.string().min(1, "must not be empty").max(100);
 /** Stable schedule tag stored with the item ("EV-1", "CP-3" …); never renumbered. */
 const tag = z
@@ -164,6 +166,27 @@ export const circuitSchema = z.object({
   heatRejection: heatRejectionSchema,
   /** Two-stage only: intermediate saturation temperature, °C; default the geometric-mean pressure. */
   intermediateC: range(-40, 30, "°C").optional(),
+  /**
+   * Transcritical R744 only: set point of the high-pressure control (gas-cooler pressure), Pa
+   * absolute, or "optimise" (the default) for the pressure of best COP. At design the
+   * computation also refuses a set point below the lowest sensible pressure for the
+   * gas-cooler outlet (its saturation pressure, or the critical pressure above 31 °C).
+   */
+  highSidePa: z
+    .union([
+      z.literal("optimise"),
+      z
+        .number(HIGH_SIDE_MSG)
+        .min(5e6, HIGH_SIDE_MSG)
+        .max(14e6, HIGH_SIDE_MSG),
+    ])
+    .optional(),
+  /**
+   * Transcritical R744 only: gas-cooler outlet temperature at or below which the circuit
+   * runs subcritical (condensing, with a liquid receiver), °C; default the critical
+   * temperature − 5 K ≈ 26 °C (common practice).
+   */
+  switchOverC: range(5, 30, "°C").optional(),
   /**
    * Stable tags of the circuit's own schedule items; when absent they are derived from the
    * circuit tag (CP-<tag>, IC-<tag>, LPR-<tag>, CHX-<tag>), so they stay put either way.

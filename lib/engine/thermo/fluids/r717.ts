@@ -4,14 +4,16 @@
  * Tillner-Roth (1995), "Thermodynamic Properties of Environmentally Acceptable Refrigerants",
  * Springer. Coefficients as printed there and as carried by Debian's python3-iapws
  * (iapws/ammonia.py, class NH3). Ancillaries for ρ' and ρ'' (seeds only) from the same source.
- * Valid 196–700 K, up to 1000 MPa; this module uses 196–523.15 K, ≤ 25 MPa.
+ * Valid 196–700 K, up to 1000 MPa; this module uses 196–700 K (the whole temperature range,
+ * so a single-stage discharge far above any compressor's limit can still be computed and
+ * flagged), ≤ 25 MPa.
  */
 import { pureFluidMeta } from "../meta";
 import type { PureFluidData } from "../helmholtz/pure-fluid";
 
 export const data: PureFluidData = {
   meta: pureFluidMeta.R717,
-  range: { tMinK: 196, tMaxK: 523.15, pMaxPa: 25e6 },
+  range: { tMinK: 196, tMaxK: 700, pMaxPa: 25e6 },
   eos: {
     tReducingK: 405.4,
     rhoReducingKgM3: 225,
