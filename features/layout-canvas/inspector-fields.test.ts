@@ -49,3 +49,35 @@ describe("links while an item is unconnected", () => {
     expect(isLinkIssue("circuit", ["compressor", "units"])).toBe(false);
   });
 });
+
+describe("R744 high-side inputs", () => {
+  const co2 = circuitSchema.parse({ id: "c", tag: "C-1", refrigerant: "R744", arrangement: "transcritical", heatRejection: { to: "condenser", condenserId: "gc" } });
+
+  it("enters the high-side set point in bar(a) or psia and stores Pa absolute", () => {
+    const f = toForm(co2, "circuit", "SI");
+    expect(f[formKey("highSidePa")]).toBe("");
+    const bar = fromForm(co2, "circuit", { ...f, highSidePa: "95" }, f, "SI") as typeof co2;
+    // 1 bar = 100 000 Pa (by definition).
+    expect(bar.highSidePa).toBe(9.5e6);
+    const fi = toForm(co2, "circuit", "IP");
+    const psi = fromForm(co2, "circuit", { ...fi, highSidePa: "1300" }, fi, "IP") as typeof co2;
+    // 1 psi = 6894.757 Pa (NIST SP 811, Appendix B).
+    expect(psi.highSidePa as number).toBeCloseTo(1300 * 6894.757, 0);
+    expect(toForm(bar, "circuit", "SI")[formKey("highSidePa")]).toBe("95");
+  });
+
+  it("takes “optimise” as a word and names the field and range when the number is out of range", () => {
+    const f = toForm(co2, "circuit", "SI");
+    const opt = fromForm(co2, "circuit", { ...f, highSidePa: "Optimize" }, f, "SI") as typeof co2;
+    expect(opt.highSidePa).toBe("optimise");
+    expect(() => fromForm(co2, "circuit", { ...f, highSidePa: "high" }, f, "SI")).toThrow(/must be a number or “optimise”/);
+    const r = circuitSchema.safeParse(fromForm(co2, "circuit", { ...f, highSidePa: "200" }, f, "SI"));
+    expect(r.success).toBe(false);
+    expect(issueKey("circuit", r.error!.issues[0].path)).toBe("highSidePa");
+    expect(r.error!.issues[0].message).toMatch(/50–140 bar\(a\)/);
+    const sw = circuitSchema.safeParse(fromForm(co2, "circuit", { ...f, switchOverC: "35" }, f, "SI"));
+    expect(sw.success).toBe(false);
+    expect(issueKey("circuit", sw.error!.issues[0].path)).toBe("switchOverC");
+    expect(sw.error!.issues[0].message).toBe("must be between 5 and 30 °C");
+  });
+});

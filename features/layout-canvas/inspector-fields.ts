@@ -9,7 +9,7 @@ import { circuitSchema, condenserSchema, evaporatorSchema, fluidIdSchema } from 
 import { convert, UNIT_LABELS, type UnitSystem } from "@/lib/units";
 import type { NodeKind } from "./schema";
 
-export type UnitKind = "temp" | "tempDiff" | "length" | "none";
+export type UnitKind = "temp" | "tempDiff" | "length" | "pressure" | "none";
 
 export interface FieldDef {
   /** Dotted path inside the entity. */
@@ -25,9 +25,12 @@ export interface FieldDef {
   hint?: string;
   /** Shown only when this returns true for the entity. */
   when?: (e: Record<string, unknown>) => boolean;
+  /** A word a number field also takes as its value (e.g. "optimise"), stored as that word. */
+  keyword?: string;
 }
 
 const isCascade = (e: Record<string, unknown>) => (e.heatRejection as { to?: string } | undefined)?.to === "circuit";
+const isTranscritical = (e: Record<string, unknown>) => e.arrangement === "transcritical";
 
 export const FIELDS: Record<Exclude<NodeKind, "outdoors">, FieldDef[]> = {
   room: [
@@ -64,10 +67,30 @@ export const FIELDS: Record<Exclude<NodeKind, "outdoors">, FieldDef[]> = {
     { name: "compressor.units", label: "Compressor units", type: "number", optional: true },
     { name: "compressor.standbyUnits", label: "of which standby", type: "number", optional: true },
     { name: "suctionLineAllowanceK", label: "Suction-line allowance", type: "number", unit: "tempDiff", optional: true, hint: "default 1 K" },
+    { name: "superheatK", label: "Suction superheat", type: "number", unit: "tempDiff", optional: true, hint: "default the evaporators' DX superheat (0 for pumped feed); 0–40 K" },
     { name: "subcoolingK", label: "Subcooling", type: "number", unit: "tempDiff", optional: true, hint: "default 3 K" },
     { name: "tempConvention", label: "Blend temperatures", type: "select", options: ["dew", "bubble", "mean"], optional: true },
     { name: "heatRejection.condensingC", label: "Cascade condensing", type: "number", unit: "temp", optional: true, when: isCascade },
     { name: "heatRejection.approachK", label: "Cascade approach", type: "number", unit: "tempDiff", optional: true, when: isCascade },
+    {
+      name: "highSidePa",
+      label: "High-side pressure (set point)",
+      type: "number",
+      unit: "pressure",
+      optional: true,
+      keyword: "optimise",
+      hint: "empty or “optimise”: the pressure of best COP; a set point 50–140 bar(a)",
+      when: isTranscritical,
+    },
+    {
+      name: "switchOverC",
+      label: "Condensing (subcritical) at gas-cooler outlet up to",
+      type: "number",
+      unit: "temp",
+      optional: true,
+      hint: "default 26 °C (critical − 5 K); 5–30 °C",
+      when: isTranscritical,
+    },
   ],
   condenser: [
     { name: "tag", label: "Tag", type: "text" },
@@ -106,13 +129,15 @@ export function setPath<T extends object>(o: T, path: string, value: unknown): T
 export function unitLabel(f: FieldDef, s: UnitSystem): string | undefined {
   if (f.suffix) return f.suffix;
   if (!f.unit || f.unit === "none") return undefined;
-  return UNIT_LABELS[s][f.unit];
+  // Pressures entered are absolute (a control set point), never gauge.
+  return UNIT_LABELS[s][f.unit === "pressure" ? "pressure_abs" : f.unit];
 }
 
 function toDisplay(v: number, unit: UnitKind | undefined, s: UnitSystem): number {
   if (unit === "temp") return convert.tempToDisplay(v, s);
   if (unit === "tempDiff") return convert.tempDiffToDisplay(v, s);
   if (unit === "length") return convert.lengthToDisplay(v, s);
+  if (unit === "pressure") return convert.pressureToDisplay(v, s, "abs");
   return v;
 }
 
@@ -120,6 +145,7 @@ function fromDisplay(v: number, unit: UnitKind | undefined, s: UnitSystem): numb
   if (unit === "temp") return convert.tempFromDisplay(v, s);
   if (unit === "tempDiff") return convert.tempDiffFromDisplay(v, s);
   if (unit === "length") return convert.lengthFromDisplay(v, s);
+  if (unit === "pressure") return convert.pressureFromDisplay(v, s, "abs");
   return v;
 }
 
@@ -170,9 +196,13 @@ export function fromForm(entity: object, kind: Exclude<NodeKind, "outdoors">, va
       e = setPath(e, f.name, undefined);
       continue;
     }
+    if (f.keyword && raw.toLowerCase().replace("optimize", "optimise") === f.keyword) {
+      e = setPath(e, f.name, f.keyword);
+      continue;
+    }
     if (f.type === "number") {
       const n = Number(raw.replace(",", ".").replace("\u2212", "-"));
-      if (!Number.isFinite(n)) throw new FormFieldError(key, `${f.label} must be a number`);
+      if (!Number.isFinite(n)) throw new FormFieldError(key, `${f.label} must be a number${f.keyword ? ` or “${f.keyword}”` : ""}`);
       e = setPath(e, f.name, fromDisplay(n, f.unit, s));
     } else e = setPath(e, f.name, raw);
   }

@@ -40,6 +40,10 @@ function CircuitCard({ card, s }: { card: CircuitCardData; s: UnitSystem }) {
   const c = card.circuit;
   const kg = (v: number) => `${fmt.number(convert.massToDisplay(v, s), 3)} ${UNIT_LABELS[s].mass}/s`;
   const temp = c.cycle === "transcritical" ? "Gas-cooler outlet" : "Condensing";
+  // Far past any compressor's limit: shown above everything else on the card, not in the list.
+  const extreme = card.warnings.filter((w) => w.code === "DISCHARGE_TEMP_EXTREME");
+  const others = card.warnings.filter((w) => w.code !== "DISCHARGE_TEMP_EXTREME");
+  const cascadeSgen = c.entropyGeneration.byComponentW_K.cascadeExchanger;
   return (
     <article className="rounded border border-line bg-surface p-3" aria-labelledby={`c-${c.id}`}>
       <header className="mb-2 flex flex-wrap items-baseline gap-3">
@@ -54,6 +58,12 @@ function CircuitCard({ card, s }: { card: CircuitCardData; s: UnitSystem }) {
           {c.compressor.standbyUnits ? ` (${c.compressor.standbyUnits} standby)` : ""} · blends: {c.tempConvention} point
         </span>
       </header>
+      {extreme.map((w) => (
+        <div key={w.message} role="alert" data-testid="discharge-extreme" className="mb-3 rounded border-2 border-danger bg-danger/10 p-2 text-sm text-danger">
+          <p className="font-semibold">⛔ Discharge temperature beyond any compressor and oil</p>
+          <p className="mt-0.5">{w.message}</p>
+        </div>
+      ))}
       <div className="grid gap-4 lg:grid-cols-[minmax(18rem,24rem)_1fr]">
         <div className="flex flex-col gap-3 text-sm">
           <dl className="grid grid-cols-[auto_auto] gap-x-4 gap-y-0.5">
@@ -62,6 +72,31 @@ function CircuitCard({ card, s }: { card: CircuitCardData; s: UnitSystem }) {
             <Row label="Second-law efficiency" value={c.secondLawEfficiency === null ? "—" : fmt.percent(c.secondLawEfficiency)} title="COP ÷ Carnot COP" />
             <Row label="Suction (saturated)" value={fmt.temp(c.suctionC, s)} />
             <Row label={temp} value={fmt.temp(c.condensingC, s)} />
+            {c.r744 ? (
+              <>
+                <Row
+                  label="R744 mode at design"
+                  value={c.r744.mode === "transcritical" ? "transcritical (gas cooler)" : "subcritical (condensing, receiver)"}
+                  title="Subcritical when the gas-cooler outlet is at or below the switch-over temperature"
+                />
+                <Row
+                  label="Switch-over to condensing"
+                  value={`${c.sinkKind === "dry-bulb" ? "ambient" : "sink"} ≤ ${fmt.temp(c.r744.switchOverSinkC, s)}`}
+                  title={`Gas-cooler outlet at or below ${fmt.temp(c.r744.switchOverC, s)} (the circuit's switch-over; default critical temperature − 5 K)`}
+                />
+                {c.gasCoolerPa !== undefined ? (
+                  <Row
+                    label={c.r744.highSide === "set" ? "High side (set point)" : "High side (optimised)"}
+                    value={fmt.pressure(c.gasCoolerPa, s)}
+                    title={
+                      c.r744.highSide === "set"
+                        ? "Set point of the high-pressure control, from the circuit's input"
+                        : `Best COP, searched from ${fmt.pressure(c.r744.searchFromPa ?? 0, s)} to ${fmt.pressure(c.r744.searchToPa ?? 0, s)}`
+                    }
+                  />
+                ) : null}
+              </>
+            ) : null}
             {c.intermediateC !== undefined ? <Row label="Intermediate" value={fmt.temp(c.intermediateC, s)} /> : null}
             <Row label="Refrigeration" value={fmt.power(c.refrigerationW, s, "refrigeration")} title="Refrigeration duty (not electrical)" />
             <Row label="Compressor shaft" value={fmt.power(c.shaftPowerW, s, "electrical").replace("kW(e)", "kW shaft")} title="Mechanical power at the compressor shaft" />
@@ -71,16 +106,22 @@ function CircuitCard({ card, s }: { card: CircuitCardData; s: UnitSystem }) {
             <Row label="Discharge temperature" value={fmt.temp(c.dischargeTempC, s)} />
             <Row label="Pressure ratio" value={fmt.number(c.pressureRatio, 2)} />
             <Row label="Entropy generated" value={`${fmt.number(c.entropyGeneration.totalW_K, 1)} W/K`} title="Σ over components; ≥ 0 by the second law" />
+            {cascadeSgen !== undefined ? (
+              <Row label="of which cascade exchanger" value={`${fmt.number(cascadeSgen, 1)} W/K`} title="Against the low stage's desuperheating and condensing stream at its mean temperature Δh/Δs" />
+            ) : null}
+            {c.sinkKind === "cascade" ? (
+              <Row label="Rejects through its stream at" value={fmt.temp(c.entropySinkC, s)} title="Mean temperature Δh/Δs of the desuperheating and condensing stream in the cascade exchanger" />
+            ) : null}
           </dl>
-          {card.warnings.length ? (
+          {others.length ? (
             <ul className="flex flex-col gap-1 text-xs">
-              {card.warnings.map((w, i) => (
+              {others.map((w, i) => (
                 <li key={i} className={w.severity === "warning" ? "text-warn" : "text-muted"}>
                   {w.severity === "warning" ? "⚠ Warning:" : "ℹ Note:"} {w.message}
                 </li>
               ))}
             </ul>
-          ) : (
+          ) : extreme.length ? null : (
             <p className="text-xs text-ok">✓ No warnings for this circuit.</p>
           )}
           {card.caution ? (
