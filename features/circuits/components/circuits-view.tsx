@@ -60,7 +60,7 @@ function CircuitCard({ card, s }: { card: CircuitCardData; s: UnitSystem }) {
       </header>
       {extreme.map((w) => (
         <div key={w.message} role="alert" data-testid="discharge-extreme" className="mb-3 rounded border-2 border-danger bg-danger/10 p-2 text-sm text-danger">
-          <p className="font-semibold">⛔ Discharge temperature beyond any compressor and oil</p>
+          <p className="font-semibold">⚠ Discharge temperature beyond any compressor and oil</p>
           <p className="mt-0.5">{w.message}</p>
         </div>
       ))}

@@ -282,7 +282,7 @@ export function CalculationReport({ d, unitSystem: s, generatedAt, generatedBy }
             <ul className="list-disc pl-5 text-xs">
               {r.plant.warnings.map((w) => (
                 <li key={w.code + w.ref.id + w.message} className={w.code === "DISCHARGE_TEMP_EXTREME" ? "font-semibold text-danger" : undefined}>
-                  {w.code === "DISCHARGE_TEMP_EXTREME" ? "⛔" : "⚠"} {w.ref.tag ?? w.ref.id}: {w.message}
+                  ⚠ {w.ref.tag ?? w.ref.id}: {w.message}
                 </li>
               ))}
             </ul>

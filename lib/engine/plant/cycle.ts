@@ -456,6 +456,13 @@ export function transcriticalCycle(spec: CycleSpec): CycleResult {
         { min: lowest, max: highest, unit: "Pa" },
       );
     const s3 = fluid.statePT(spec.highSidePa, outK);
+    if (!(s3.hJkg < suctionState(fluid, satE, pE, spec.superheatK).hJkg))
+      throw new PlantError(
+        "INPUT_OUT_OF_RANGE",
+        `at the high-side set point ${(spec.highSidePa / 1e5).toFixed(1)} bar(a) the CO2 leaves the gas cooler at ${(outK - 273.15).toFixed(1)} °C with more enthalpy than the suction vapour: no refrigerating effect; raise the set point or leave it to the optimiser`,
+        "highSidePa",
+        { min: lowest, max: highest, unit: "Pa" },
+      );
     return { ...cycleAtPressures(spec, pE, spec.highSidePa, satE, s3, "transcritical"), highSide: { mode: "set" } };
   }
   const s1 = suctionState(fluid, satE, pE, spec.superheatK);

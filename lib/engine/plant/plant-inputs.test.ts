@@ -7,6 +7,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
+import fc from "fast-check";
 import { loadFluid } from "../thermo";
 import type { Fluid } from "../thermo/types";
 import { computeFacility, facilityModelSchema, type FacilityModel } from "../model";
@@ -150,6 +151,43 @@ describe("cascade exchanger: the low stage's stream as the high stage's heat sou
     expect(up.entropyW_K.evaporator).toBeUndefined();
   });
 
+  it("either closes both laws over the chain or names an input, over random cascade entries", () => {
+    const arb = fc.record({
+      approachK: fc.double({ min: 1, max: 15, noNaN: true }),
+      superheatK: fc.double({ min: 0, max: 40, noNaN: true }),
+      allowanceK: fc.double({ min: 0, max: 3, noNaN: true }),
+      subcoolingK: fc.double({ min: 0, max: 10, noNaN: true }),
+      condensingC: fc.double({ min: -20, max: 5, noNaN: true }),
+      screw: fc.boolean(),
+    });
+    let computed = 0;
+    fc.assert(
+      fc.property(arb, (a) => {
+        const p = cascadePlant();
+        Object.assign(p.circuits[0].heatRejection, { approachK: a.approachK, condensingC: a.condensingC });
+        p.circuits[0].subcoolingK = a.subcoolingK;
+        if (a.screw) p.circuits[0].compressor = { type: "screw" };
+        Object.assign(p.circuits[1], { superheatK: a.superheatK, suctionLineAllowanceK: a.allowanceK });
+        let res;
+        try {
+          res = computeFacility(model(p));
+        } catch (e) {
+          expect(e).toBeInstanceOf(PlantError);
+          expect((e as PlantError).field).toMatch(/^plant\.(circuits|evaporators)\.\d+\./);
+          return;
+        }
+        const sys = res.plant.systems.find((x) => x.circuitId === "hs")!;
+        for (const c of res.plant.circuits) for (const v of Object.values(c.entropyGeneration.byComponentW_K)) expect(v).toBeGreaterThanOrEqual(-1e-9 * c.heatRejectedW);
+        expect(Math.abs(sys.entropyGenerationW_K - sys.clausiusW_K) / sys.clausiusW_K).toBeLessThan(1e-6);
+        expect(sys.cop).toBeLessThan(sys.copCarnot!);
+        computed++;
+      }),
+      { seed: 11, numRuns: 30 },
+    );
+    // Most of these entries are ordinary designs: they must compute, not fail.
+    expect(computed).toBeGreaterThan(20);
+  });
+
   it("names the approach when a cascade exchanger would run heat uphill", () => {
     // 1 K approach; the low stage's gas held at 30 °C by its oil cooler and its liquid
     // subcooled 30 K, so its stream's mean temperature falls below −5 °C; the high stage
@@ -228,6 +266,30 @@ describe("transcritical R744: high-side pressure", () => {
     expect(e.code).toBe("INPUT_OUT_OF_RANGE");
     expect(e.field).toBe("highSidePa");
     expect(e.allowed!.min).toBe(co2.meta.criticalPressurePa);
+  });
+
+  it("never leaves a better pressure unsearched, over random outlets and evaporating temperatures", () => {
+    fc.assert(
+      fc.property(fc.double({ min: 26.5, max: 45, noNaN: true }), fc.double({ min: -35, max: 0, noNaN: true }), (outC, evapC) => {
+        const s = co2Spec(outC, { evaporatingK: evapC + K0, switchOverK: 26 + K0 });
+        const best = copOf(transcriticalCycle(s));
+        const lowest = lowestHighSidePa(co2, outC + K0);
+        for (let i = 0; i <= 12; i++) {
+          const p = lowest + ((14e6 - lowest) * i) / 12;
+          let at: number;
+          try {
+            at = copOf(transcriticalCycle({ ...s, highSidePa: p }));
+          } catch (e) {
+            // A set point too low for any refrigerating effect is refused, naming the set point.
+            expect(e).toBeInstanceOf(PlantError);
+            expect((e as PlantError).field).toBe("highSidePa");
+            continue;
+          }
+          expect(at).toBeLessThanOrEqual(best * (1 + 1e-6));
+        }
+      }),
+      { seed: 7, numRuns: 25 },
+    );
   });
 
   function co2Plant(over: Record<string, unknown> = {}) {
