@@ -534,8 +534,10 @@ function buildTable(
   prep: ReturnType<typeof preparePlant>,
   done: ReadonlyMap<string, CircuitResult>,
 ): (tcC: number) => { shaft: number; swept: number; oil: number } {
-  const t0 = Math.floor(tMin / step) * step;
-  const n = Math.max(1, Math.round((Math.ceil(tMax / step) * step - t0) / step)) + 1;
+  // The grid starts at the lowest condensing temperature of the year, so the many hours held
+  // at the minimum (and a constant-temperature year) fall on a node.
+  const t0 = tMin;
+  const n = tMax > tMin ? Math.ceil((tMax - tMin) / step - 1e-9) + 1 : 1;
   const shaft = new Float64Array(n);
   const swept = new Float64Array(n);
   const oil = new Float64Array(n);
