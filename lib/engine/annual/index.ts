@@ -423,8 +423,8 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
         designSweptVolumeM3s: designSwept,
         designCondenserFanW: fanDesignW,
         designHeatRejectedW: rejDesignW,
-        minCondensingC: p.minC,
-        approachK: p.approachK,
+        ...(p.fixedC !== undefined ? { condensingC: p.fixedC } : { minCondensingC: p.minC, approachK: p.approachK }),
+        ...(p.c.arrangement === "transcritical" ? transcriticalInputs(p, tc, getFluid) : {}),
         condenserFanControl: p.op.condenserFanControl,
       }),
     });
@@ -460,6 +460,14 @@ const STATEMENTS = (op: OperationInput) => [
   "Compressors are the design's (swept volume at design); capacity at each hour follows the cycle at that hour's temperatures; part load by the circuit's capacity control.",
   "Costs are in the workspace's currency.",
 ];
+
+/** R744 transcritical: the switch-over (gas-cooler outlet 5 K below critical, the plant engine's rule) and the hours above it. */
+function transcriticalInputs(p: CircuitPlan, tc: Float64Array, getFluid: (id: FluidId) => Fluid): Record<string, number> {
+  const switchC = getFluid(p.c.refrigerant).meta.criticalTempK - K0 - 5;
+  let n = 0;
+  for (let i = 0; i < tc.length; i++) if (tc[i] >= switchC && p.load[i] + p.lowHeat[i] > 0) n++;
+  return { switchOverOutletC: switchC, switchOverAmbientC: switchC - p.approachK, transcriticalHours: n };
+}
 
 function sinkOf(p: CircuitPlan, model: FacilityModel, dryBulbC: number, wetBulbC: number): number {
   const hr = p.c.heatRejection;
