@@ -196,6 +196,38 @@ describe("results", () => {
   });
 });
 
+describe("every figure traces to its hour and inputs", () => {
+  it("the peak hour and any hour asked for are taken apart, and their parts add up", () => {
+    const m = demo({ doorTraffic: { all: Array.from({ length: 7 }, (_, d) => new Array(24).fill(d >= 5 ? 0.5 : 1)) } });
+    const r = runAnnual(m, sineDayYear(CLIMATE, 2025), { traceHours: [4000, 106] });
+    expect(r.hourTraces.map((t) => t.index)).toEqual([4000, 106]);
+    for (const t of [r.peakHourTrace, ...r.hourTraces]) {
+      let roomsW = 0;
+      for (const x of t.rooms) {
+        const parts = x.otherW + x.productW + x.peopleW + x.lightsW + x.outsideSurfacesW + x.doorsW + x.freshAirW + x.fansHeatW + x.defrostHeatW;
+        expect(x.loadW).toBeCloseTo(Math.max(0, parts), 6);
+        roomsW += x.loadW;
+      }
+      // Every room has an evaporator: the circuits carry the rooms' load (no cascade in the demo).
+      expect(t.circuits.reduce((a, c) => a + c.loadW, 0)).toBeCloseTo(roomsW, 3);
+      for (const c of t.circuits) expect(c.workW).toBeGreaterThanOrEqual(c.carnotWorkW);
+    }
+    const peakKW = r.peakHourTrace.circuits.reduce((a, c) => a + Object.values(c.kW).reduce((x, y) => x + y, 0), 0);
+    expect(peakKW).toBeCloseTo(r.facility.peakKWe, 9);
+    expect(r.peakHourTrace.label).toBe(r.facility.peakHour.label);
+    // Hour 106 is Sunday 5 January 10:00 (1 January 2025 a Wednesday): the door multiplier is
+    // 0.5 there, so dock door 1 sees half its 10 design passages at 10:00.
+    const sun = r.hourTraces[1];
+    expect(sun.label).toBe("Jan 5 (Sun) 10:00");
+    const dockDoor = sun.rooms.find((x) => x.roomId === "dock")!.doors.find((d) => d.doorId === "d-dock-1")!;
+    expect(dockDoor.passages).toBeCloseTo(5, 9);
+    // A January morning colder than the +5 °C dock: no infiltration load (only a warmer side counts, as in the ledger).
+    expect(sun.dryBulbC).toBeLessThan(5);
+    expect(dockDoor.loadW).toBe(0);
+    expect(thrown(() => runAnnual(m, sineDayYear(CLIMATE, 2025), { traceHours: [9000] })).field).toBe("traceHours.0");
+  });
+});
+
 describe("bad input names the field and the range", () => {
   it("operation", () => {
     const e = thrown(() => parseOperation({ circuits: { mt: { minCondensingC: 80 } } }));

@@ -16,7 +16,7 @@ import type { CircuitInput } from "../plant/schema";
 import { getFluid as thermoGetFluid } from "../thermo";
 import type { Fluid, FluidId } from "../thermo/types";
 import { controlSource, defaultCapacityControl, powerFraction } from "./part-load";
-import { buildRoomHourModel, directRoomHour, fastRoomHour, type HourFactors, type RoomHourModel } from "./room-hours";
+import { buildRoomHourModel, directRoomHour, fastRoomHour, roomHourParts, type HourFactors, type RoomHourModel } from "./room-hours";
 import { operationSchema, type CapacityControl, type CircuitOperation, type OperationInput } from "./schema";
 import { calendarOf, hourLabel, validateWeatherYear, type Calendar, type WeatherYear } from "./weather";
 
@@ -97,6 +97,10 @@ export interface AnnualResult {
   circuits: Array<AnnualFigures & { circuitId: string; name: string }>;
   /** Rooms' load over the year, kWh, and the evaporators' share of fans and defrost. */
   rooms: Array<{ roomId: string; name: string; loadKWh: number; served: boolean; defrostsPerYear: number }>;
+  /** The facility's peak hour taken apart. */
+  peakHourTrace: HourTrace;
+  /** The hours asked for in `traceHours`, taken apart. */
+  hourTraces: HourTrace[];
   statements: string[];
   warnings: string[];
 }
@@ -107,6 +111,43 @@ export interface AnnualOptions {
   /** Grid step of the cycle table, K (fast method); default 0.5. */
   gridStepK?: number;
   getFluid?: (id: FluidId) => Fluid;
+  /** Hours of the year (0-based) to take apart in `hourTraces`; the facility's peak hour always is (`peakHourTrace`). */
+  traceHours?: number[];
+}
+
+/** One hour taken apart: its weather and schedules, every room's load by part, every circuit's state and input. */
+export interface HourTrace {
+  index: number;
+  label: string;
+  dryBulbC: number;
+  rhPct: number;
+  wetBulbC: number;
+  outdoorEnthalpyKJkg: number;
+  factors: HourFactors;
+  rooms: Array<
+    ReturnType<typeof roomHourParts> & {
+      roomId: string;
+      /** The load the evaporators served this hour (parts + fan and defrost heat, not below 0), W. */
+      loadW: number;
+      fansHeatW: number;
+      defrostHeatW: number;
+      defrostsPerDay: number;
+      moistureKgPerDay: number;
+    }
+  >;
+  circuits: Array<{
+    circuitId: string;
+    name: string;
+    /** Refrigeration served, W (rooms and cascade exchangers). */
+    loadW: number;
+    condensingC: number | null;
+    sinkC: number;
+    partLoadRatio: number;
+    powerFraction: number;
+    kW: SplitKWh;
+    carnotWorkW: number;
+    workW: number;
+  }>;
 }
 
 /** Validates the `operation` section (defaults filled); errors name `operation.<path>` and the range. */
@@ -175,6 +216,9 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
   const design = computeFacility(model, { getFluid });
   const lctx = contextFromParsed(ledgerPart(model));
   const hours = weather.dryBulbC.length;
+  (opts.traceHours ?? []).forEach((i, k) => {
+    if (!(Number.isInteger(i) && i >= 0 && i < hours)) fail(`traceHours.${k}`, `must be a whole hour between 0 and ${hours - 1}`);
+  });
   const cal = calendarOf(hours, weather.startWeekday);
   const pressurePa = weather.pressurePa ?? lctx.site.pressurePa;
 
@@ -249,7 +293,42 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
     const i = d * 24;
     dayFactor[d] = (intake.byWeekday?.[cal.weekday[i]] ?? 1) * (intake.byMonth?.[cal.month[i]] ?? 1);
   }
-  const facilityLoad = new Float64Array(hours);
+  const factorsAt = (i: number): HourFactors => {
+    const wd = cal.weekday[i];
+    const h = i % 24;
+    return { product: dayFactor[cal.day[i]], people: op.people?.[wd][h] ?? 1, lights: op.lights?.[wd][h] ?? 1 };
+  };
+  /**
+   * One room's day: the load of each hour without fans and defrost (into `base`), the day's
+   * moisture and so its defrosts, and each evaporator's fan and defrost power that day.
+   */
+  const evalDay = (m: RoomHourModel, evs: EvaporatorSizing[], d: number, base: Float64Array) => {
+    let moistureKg = 0;
+    for (let h = 0; h < 24; h++) {
+      const i = d * 24 + h;
+      const wd = cal.weekday[i];
+      const f = factorsAt(i);
+      const fast = fastRoomHour(m, h, wd, f, air[i]);
+      base[h] = method === "direct" ? directRoomHour(m, h, wd, f, air[i], lctx) : fast.w;
+      moistureKg += fast.moistureKgS * 3600;
+    }
+    // Defrosts per day rise with the moisture the air exchange brings in (README: the rule).
+    const ratio = m.designMoistureKg > 0 ? Math.min(op.defrost.maxFactor, op.defrost.fixedShare + (1 - op.defrost.fixedShare) * (moistureKg / m.designMoistureKg)) : 1;
+    let fanHeatW = 0;
+    let defrostHeatW = 0;
+    let defrostsPerDay = 0;
+    const perEvap: { e: EvaporatorSizing; fanW: number; electricW: number; defrostsPerDay: number }[] = [];
+    for (const e of evs) {
+      const n = Math.min(e.defrost.defrostsPerDay * ratio, e.defrost.minutesPerDefrost > 0 ? 1440 / e.defrost.minutesPerDefrost : Infinity);
+      defrostsPerDay += n;
+      const downH = e.defrost.type === "off-cycle" ? 0 : (e.defrost.minutesPerDefrost * n) / 60;
+      const fw = (e.fanPowerW * Math.max(0, 24 - downH)) / 24;
+      fanHeatW += fw;
+      defrostHeatW += (e.defrost.heaterW * (e.defrost.minutesPerDefrost / 60) * n * e.defrost.fractionToRoom) / 24;
+      perEvap.push({ e, fanW: fw, electricW: (e.defrost.electricW * (e.defrost.minutesPerDefrost / 60) * n) / 24, defrostsPerDay: n });
+    }
+    return { perEvap, fanHeatW, defrostHeatW, defrostsPerDay, moistureKg, ratio };
+  };
   const roomVolumeByCircuit = new Map<string, number>();
   for (const m of roomModels) {
     const r = m.room;
@@ -262,39 +341,13 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
     let loadWh = 0;
     let defrosts = 0;
     for (let d = 0; d < cal.days; d++) {
-      let moistureKg = 0;
-      for (let h = 0; h < 24; h++) {
-        const i = d * 24 + h;
-        const wd = cal.weekday[i];
-        const f: HourFactors = { product: dayFactor[d], people: op.people?.[wd][h] ?? 1, lights: op.lights?.[wd][h] ?? 1 };
-        const fast = fastRoomHour(m, h, wd, f, air[i]);
-        base[h] = method === "direct" ? directRoomHour(m, h, wd, f, air[i], lctx) : fast.w;
-        moistureKg += fast.moistureKgS * 3600;
-      }
-      // Defrosts per day rise with the moisture the air exchange brings in (README: the rule).
-      const ratio = m.designMoistureKg > 0 ? Math.min(op.defrost.maxFactor, op.defrost.fixedShare + (1 - op.defrost.fixedShare) * (moistureKg / m.designMoistureKg)) : 1;
-      let fanW = 0;
-      let fanHeatW = 0;
-      let defrostHeatW = 0;
-      const perEvap: { e: EvaporatorSizing; fanW: number; electricW: number }[] = [];
-      for (const e of evs) {
-        const n = Math.min(e.defrost.defrostsPerDay * ratio, e.defrost.minutesPerDefrost > 0 ? 1440 / e.defrost.minutesPerDefrost : Infinity);
-        defrosts += n;
-        const downH = e.defrost.type === "off-cycle" ? 0 : (e.defrost.minutesPerDefrost * n) / 60;
-        const fw = (e.fanPowerW * Math.max(0, 24 - downH)) / 24;
-        const heat = (e.defrost.heaterW * (e.defrost.minutesPerDefrost / 60) * n * e.defrost.fractionToRoom) / 24;
-        fanW += fw;
-        fanHeatW += fw;
-        defrostHeatW += heat;
-        perEvap.push({ e, fanW: fw, electricW: (e.defrost.electricW * (e.defrost.minutesPerDefrost / 60) * n) / 24 });
-      }
-      void fanW;
+      const { perEvap, fanHeatW, defrostHeatW, defrostsPerDay } = evalDay(m, evs, d, base);
+      defrosts += defrostsPerDay;
       for (let h = 0; h < 24; h++) {
         const i = d * 24 + h;
         const q = Math.max(0, base[h] + fanHeatW + defrostHeatW);
         loadWh += q;
-        facilityLoad[i] += evs.length ? q : 0;
-        for (const pe of perEvap) {
+            for (const pe of perEvap) {
           const plan = plans.get(pe.e.circuitId);
           if (!plan) continue;
           const share = q / evs.length;
@@ -357,6 +410,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
       const q = p.load[i] + p.lowHeat[i];
       acc.evaporatorFans[i] = p.evapFans[i];
       acc.defrost[i] = p.defrost[i];
+      acc.sink[i] = sink[i];
       if (!(q > 0)) continue;
       const loadW = q + p.pump[i];
       let ratios: { shaft: number; swept: number; oil: number };
@@ -391,7 +445,6 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
       acc.loadW[i] = qServed;
       acc.roomLoadW[i] = p.load[i] * frac;
       acc.roomEntropy[i] = p.entropy[i] * frac;
-      acc.sink[i] = sink[i];
       acc.workW[i] = workW;
       acc.carnotW[i] = carnotW;
       acc.tc[i] = tc[i];
@@ -439,7 +492,51 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
   const facility = figures(totals, cal, weather, price, op, volumeM3, tonnes, true, [
     "facility: refrigeration is the rooms' load served; work is every circuit's compressor shaft and pump input (cascade heat is inside the chain)",
   ], { rooms: model.rooms.length, circuits: plans.size, volumeM3, tonnesPerYear: tonnes });
-  void facilityLoad;
+  const hourTrace = (i: number): HourTrace => {
+    const d = cal.day[i];
+    const h = i % 24;
+    const wd = cal.weekday[i];
+    const f = factorsAt(i);
+    const base = new Float64Array(24);
+    return {
+      index: i,
+      label: hourLabel(cal, i),
+      dryBulbC: weather.dryBulbC[i],
+      rhPct: weather.rhPct[i],
+      wetBulbC: wetBulb[i],
+      outdoorEnthalpyKJkg: air[i].enthalpyJkg / 1000,
+      factors: f,
+      rooms: roomModels.map((m) => {
+        const day = evalDay(m, sizedByRoom.get(m.room.id) ?? [], d, base);
+        return {
+          roomId: m.room.id,
+          ...roomHourParts(m, h, wd, f, air[i]),
+          loadW: Math.max(0, base[h] + day.fanHeatW + day.defrostHeatW),
+          fansHeatW: day.fanHeatW,
+          defrostHeatW: day.defrostHeatW,
+          defrostsPerDay: day.defrostsPerDay,
+          moistureKgPerDay: day.moistureKg,
+        };
+      }),
+      circuits: ordered.map((c) => {
+        const a = perCircuitAcc.get(c.id)!;
+        const kW: SplitKWh = { compressors: 0, condenserFans: 0, evaporatorFans: 0, defrost: 0, pumps: 0 };
+        for (const k of SPLIT_KEYS) kW[k] = a[k][i] / 1000;
+        return {
+          circuitId: c.id,
+          name: c.tag,
+          loadW: a.loadW[i],
+          condensingC: Number.isNaN(a.tc[i]) ? null : a.tc[i],
+          sinkC: a.sink[i],
+          partLoadRatio: a.plr[i],
+          powerFraction: a.pf[i],
+          kW,
+          carnotWorkW: a.carnotW[i],
+          workW: a.workW[i],
+        };
+      }),
+    };
+  };
   return {
     engineVersion: ANNUAL_ENGINE_VERSION,
     method,
@@ -448,6 +545,8 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
     facility,
     circuits: model.plant.circuits.flatMap((c) => circuitFigures.filter((f) => f.circuitId === c.id)),
     rooms: roomOut,
+    peakHourTrace: hourTrace(facility.peakHour.index),
+    hourTraces: (opts.traceHours ?? []).map(hourTrace),
     statements: STATEMENTS(op),
     warnings,
   };

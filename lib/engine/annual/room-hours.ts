@@ -258,3 +258,30 @@ export function directRoomHour(m: RoomHourModel, hod: number, weekday: number, f
   const hourCtx: LedgerContext = { ...ctx, site: { ...ctx.site, outdoor: out, designDryBulbC: out.tempC }, doorsByRoom };
   return computeRoomLoad({ ...scaledRoom(m.room, f), ...NO_FEEDBACK }, hourCtx).hourly[hod];
 }
+
+/** A room's load in one hour taken apart, W (for the hour trace): the parts `fastRoomHour` adds up. */
+export function roomHourParts(m: RoomHourModel, hod: number, weekday: number, f: HourFactors, out: AirState) {
+  const tRoom = m.air.tempC;
+  let surfacesW = 0;
+  for (const s of m.surfaces) {
+    const q = s.ua * (out.tempC + s.solarK - tRoom);
+    surfacesW += q < 0 && m.ignoreColder ? 0 : q;
+  }
+  const doors = m.doors.map((d) => {
+    const passages = d.passages[hod] * d.week[weekday][hod];
+    const r = doorHour(d, m.air, d.warm === "outdoors" ? out : d.warm, passages, `operation.doorTraffic.byDoor.${d.door.id}.${weekday}.${hod}`);
+    return { doorId: d.door.id, passages, loadW: r.w, moistureKgPerH: r.moistureKgS * 3600 };
+  });
+  const all = weatherParts(m, hod, out, weekday);
+  const doorsW = doors.reduce((a, d) => a + d.loadW, 0);
+  return {
+    otherW: m.residual[hod],
+    productW: m.product[hod] * f.product,
+    peopleW: m.people[hod] * f.people,
+    lightsW: m.lights[hod] * f.lights,
+    outsideSurfacesW: surfacesW,
+    doorsW,
+    freshAirW: all.w - surfacesW - doorsW,
+    doors,
+  };
+}
