@@ -150,6 +150,17 @@ describe("monotonic", () => {
       }
     }
   });
+  it("load beyond the design compressors' capacity is reported as unmet, with its hours", () => {
+    const mild = runAnnual(demo(), w).facility;
+    expect(mild.hoursOverCapacity).toBe(0);
+    expect(mild.unmetLoadKWh).toBe(0);
+    // A year of a hot humid day (wet bulb about 37 °C against the design's 23 °C).
+    const hot = runAnnual(demo(), constantYear(45, 45));
+    expect(hot.facility.hoursOverCapacity).toBeGreaterThan(0);
+    expect(hot.facility.unmetLoadKWh).toBeGreaterThan(0);
+    for (const c of hot.circuits) expect(hot.facility.hoursOverCapacity).toBeGreaterThanOrEqual(c.hoursOverCapacity);
+    expect(hot.facility.unmetLoadKWh).toBeCloseTo(hot.circuits.reduce((a, c) => a + c.unmetLoadKWh, 0), 6);
+  });
   it("an impossible COP is an error, never a number: a set condensing temperature below the hour's air", () => {
     const m = facilityModelSchema.parse({
       ...demo(),

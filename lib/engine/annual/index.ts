@@ -422,6 +422,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
       if (plr > 1 + 1e-9) {
         acc.unmetWh += loadW - capW;
         acc.overHours++;
+        acc.over[i] = 1;
       }
       const pf = powerFraction(Math.min(1, plr), p.control, p.units);
       const shaftW = pf * capW * ratios.shaft;
@@ -712,6 +713,8 @@ interface Accumulator {
   pf: Float64Array;
   unmetWh: number;
   overHours: number;
+  /** 1 in hours when the load exceeded the compressors' capacity. */
+  over: Uint8Array;
   /** Condensing temperatures counted into the histogram (facility: several circuits). */
   tcList: Float64Array[];
 }
@@ -736,6 +739,7 @@ function newAccumulator(hours: number): Accumulator {
     pf: a(),
     unmetWh: 0,
     overHours: 0,
+    over: new Uint8Array(hours),
     tcList: [tc],
   };
 }
@@ -744,7 +748,11 @@ function addInto(t: Accumulator, a: Accumulator): void {
   for (const k of SPLIT_KEYS) for (let i = 0; i < a[k].length; i++) t[k][i] += a[k][i];
   for (let i = 0; i < a.workW.length; i++) t.workW[i] += a.workW[i];
   t.unmetWh += a.unmetWh;
-  t.overHours = Math.max(t.overHours, a.overHours);
+  t.overHours = 0;
+  for (let i = 0; i < a.over.length; i++) {
+    t.over[i] |= a.over[i];
+    t.overHours += t.over[i];
+  }
 }
 
 /** The facility's refrigeration and Carnot work: per heat-rejection chain, the rooms' air to the chain's sink. */
