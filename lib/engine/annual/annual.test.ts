@@ -64,9 +64,15 @@ describe("constant-weather year = hours × the design hour (the engine's own def
   // engine's rule). A year of constant weather equal to the site's design state, every
   // schedule multiplier 1 and that linear part-load rule must give exactly hours × that hour.
   const op: OperationInputRaw = { circuits: { lt: LINEAR_CIRCUIT, mt: LINEAR_CIRCUIT } };
-  for (const hours of [8760, 8784]) {
-    it(`${hours} hours`, () => {
-      const m = demo(op);
+  // At the demo's design weather and at a milder one (the model's site set to that weather, so
+  // computeFacility is evaluated at it).
+  for (const [hours, t, rh] of [
+    [8760, 32, 45],
+    [8784, 32, 45],
+    [8760, 24, 60],
+  ]) {
+    it(`${hours} hours at ${t} °C / ${rh} %`, () => {
+      const m = demo(op, { designDryBulbC: t, designRH: rh });
       const design = computeFacility(m);
       const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
       let kW = 0;
@@ -83,7 +89,7 @@ describe("constant-weather year = hours × the design hour (the engine's own def
       }
       for (const e of design.plant.evaporators)
         kW += ((e.fanPowerW * e.fanHoursPerDay) / 24 + (e.defrost.electricW * (e.defrost.minutesPerDefrost / 60) * e.defrost.defrostsPerDay) / 24) / 1000;
-      const year = runAnnual(m, constantYear(32, 45, { hours }));
+      const year = runAnnual(m, constantYear(t, rh, { hours }));
       expect(year.hours).toBe(hours);
       expect(year.facility.kWh / (hours * kW) - 1).toBeCloseTo(0, 9);
       expect(year.facility.loadKWh / (hours * loadKW) - 1).toBeCloseTo(0, 9);
@@ -204,6 +210,20 @@ describe("results", () => {
     expect(f.hoursAtCondensingC.reduce((a, b) => a + b.hours, 0)).toBe(2 * 8760);
     expect(f.hoursAtCondensingC[0].fromC).toBe(20);
     expect(r.weather.label).toMatch(/approximation/);
+  });
+});
+
+describe("a facility without plant", () => {
+  it("runs: no kWh, unserved rooms warned, nothing non-finite", () => {
+    const m = facilityModelSchema.parse({ ...demo(), plant: {} });
+    const r = runAnnual(m, constantYear(15, 70));
+    expect(r.facility.kWh).toBe(0);
+    expect(r.facility.seasonalCOP).toBeNull();
+    expect(r.facility.kWhPerTonne).toBe(0);
+    expect(r.circuits).toEqual([]);
+    expect(r.rooms.every((x) => !x.served && x.loadKWh > 0)).toBe(true);
+    expect(r.warnings.length).toBe(m.rooms.length);
+    expect(JSON.stringify(r)).not.toMatch(/NaN|Infinity/);
   });
 });
 

@@ -25,7 +25,7 @@ export { sineDayYear, constantYear, validateWeatherYear, calendarOf, hourLabel, 
 export type { WeatherYear, Calendar } from "./weather";
 export { powerFraction, leadPowerFraction, defaultCapacityControl, SLIDE_VALVE_CURVE, VSD_EFFICIENCY_CURVE, SLIDE_VALVE_SOURCE, VSD_SOURCE, CYCLING_SOURCE } from "./part-load";
 
-export const ANNUAL_ENGINE_VERSION = "annual-1.0.0";
+export const ANNUAL_ENGINE_VERSION = "annual-1.1.0";
 
 export interface SplitKWh {
   compressors: number;
