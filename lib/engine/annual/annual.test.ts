@@ -196,6 +196,10 @@ describe("results", () => {
     const vol = m.rooms.reduce((a, x) => a + x.lengthM * x.widthM * x.heightM, 0);
     expect(f.kWhPerM3).toBeCloseTo(f.kWh / vol, 9);
     expect(f.kWhPerTonne).toBeGreaterThan(0);
+    // Each circuit's benchmarks use the volume and intake of the rooms it serves: they add up to the facility's.
+    const tonnes = f.kWh / f.kWhPerTonne!;
+    expect(r.circuits.reduce((a, c) => a + c.kWh / c.kWhPerTonne!, 0)).toBeCloseTo(tonnes, 6);
+    expect(r.circuits.reduce((a, c) => a + c.kWh / c.kWhPerM3!, 0)).toBeCloseTo(vol, 6);
     // The peak comes in the warm half of the year and names its hour.
     expect(f.peakHour.month).toBeGreaterThanOrEqual(5);
     expect(f.peakHour.month).toBeLessThanOrEqual(8);

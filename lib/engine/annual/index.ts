@@ -17,7 +17,7 @@ import { getFluid as thermoGetFluid } from "../thermo";
 import type { Fluid, FluidId } from "../thermo/types";
 import { controlSource, defaultCapacityControl, powerFraction } from "./part-load";
 import { buildRoomHourModel, directRoomHour, fastRoomHour, roomHourParts, type HourFactors, type RoomHourModel } from "./room-hours";
-import { operationSchema, type CapacityControl, type CircuitOperation, type OperationInput } from "./schema";
+import { circuitOperationSchema, operationSchema, type CapacityControl, type CircuitOperation, type OperationInput } from "./schema";
 import { calendarOf, hourLabel, validateWeatherYear, type Calendar, type WeatherYear } from "./weather";
 
 export * from "./schema";
@@ -243,7 +243,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
   model.plant.circuits.forEach((c, index) => {
     const d = designById.get(c.id);
     if (!d) return; // no load at design: nothing runs
-    const cop = op.circuits[c.id] ?? operationSchema.shape.circuits.parse({ x: {} }).x;
+    const cop = op.circuits[c.id] ?? circuitOperationSchema.parse({});
     const units = Math.max(1, c.compressor.units - c.compressor.standbyUnits);
     const plan: CircuitPlan = {
       c,
@@ -330,13 +330,20 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
     return { perEvap, fanHeatW, defrostHeatW, defrostsPerDay, moistureKg, ratio };
   };
   const roomVolumeByCircuit = new Map<string, number>();
+  const roomTonnesByCircuit = new Map<string, number>();
   for (const m of roomModels) {
     const r = m.room;
     const vol = r.lengthM * r.widthM * r.heightM;
     volumeM3 += vol;
-    for (let d = 0; d < cal.days; d++) tonnes += m.designIntakeT * dayFactor[d];
+    let roomTonnes = 0;
+    for (let d = 0; d < cal.days; d++) roomTonnes += m.designIntakeT * dayFactor[d];
+    tonnes += roomTonnes;
     const evs = sizedByRoom.get(r.id) ?? [];
-    for (const e of evs) roomVolumeByCircuit.set(e.circuitId, (roomVolumeByCircuit.get(e.circuitId) ?? 0) + vol / evs.length);
+    // A circuit's benchmarks: the volume and intake of the rooms it serves, shared by evaporator.
+    for (const e of evs) {
+      roomVolumeByCircuit.set(e.circuitId, (roomVolumeByCircuit.get(e.circuitId) ?? 0) + vol / evs.length);
+      roomTonnesByCircuit.set(e.circuitId, (roomTonnesByCircuit.get(e.circuitId) ?? 0) + roomTonnes / evs.length);
+    }
     const base = new Float64Array(24);
     let loadWh = 0;
     let defrosts = 0;
@@ -466,7 +473,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
       }
     }
     const vol = roomVolumeByCircuit.get(c.id) ?? 0;
-    const tonnesC = tonnes * (vol / Math.max(volumeM3, 1e-9));
+    const tonnesC = roomTonnesByCircuit.get(c.id) ?? 0;
     circuitFigures.push({
       circuitId: c.id,
       name: c.tag,
