@@ -286,6 +286,12 @@ describe("bad input names the field and the range", () => {
     const e = thrown(() => runAnnual(demo({ doorTraffic: { byDoor: { "d-fs": busy } } }), constantYear(20, 60)));
     expect(e.field).toMatch(/^operation\.doorTraffic\.byDoor\.d-fs\./);
   });
+  it("a minimum condensing temperature that lets the lift vanish in a cold hour names the minimum", () => {
+    const e = thrown(() => runAnnual(demo({ circuits: { mt: { minCondensingC: -10 } } }), constantYear(-20, 80)));
+    expect(e).toBeInstanceOf(PlantError);
+    expect(e.field).toBe("operation.circuits.mt.minCondensingC");
+    expect(e.message).toMatch(/condensing temperature of -10\.0 °C/);
+  });
   it("weather year", () => {
     const short = constantYear(10, 50);
     short.dryBulbC = short.dryBulbC.slice(0, 8000);

@@ -570,7 +570,9 @@ const STATEMENTS = (op: OperationInput) => [
 
 /** R744 transcritical: the switch-over (gas-cooler outlet 5 K below critical, the plant engine's rule) and the hours above it. */
 function transcriticalInputs(p: CircuitPlan, tc: Float64Array, getFluid: (id: FluidId) => Fluid): Record<string, number> {
-  const switchC = getFluid(p.c.refrigerant).meta.criticalTempK - K0 - 5;
+  // The plant engine's switch-over when it reports one (a user input in later plant versions), else its default rule.
+  const reported = (p.design as { r744?: { switchOverC?: number } }).r744?.switchOverC;
+  const switchC = reported ?? getFluid(p.c.refrigerant).meta.criticalTempK - K0 - 5;
   let n = 0;
   for (let i = 0; i < tc.length; i++) if (tc[i] >= switchC && p.load[i] + p.lowHeat[i] > 0) n++;
   return { switchOverOutletC: switchC, switchOverAmbientC: switchC - p.approachK, transcriticalHours: n };
@@ -627,8 +629,15 @@ function cycleAt(
   try {
     return computeCircuit(p.c, sized, done, { ...cctx, ambient: ambientFor(p, model, tcC) }, prep, []);
   } catch (err) {
+    // Trouble at a condensing temperature the design never saw: the condenser's fields are
+    // blamed by the plant engine, the year's minimum is what set it here; other fields stay.
     if (err instanceof PlantError && p.fixedC === undefined)
-      throw new PlantError(err.code, `at a condensing temperature of ${tcC.toFixed(1)} °C: ${err.message}`, `operation.circuits.${p.c.id}.minCondensingC`, err.allowed);
+      throw new PlantError(
+        err.code,
+        `at a condensing temperature of ${tcC.toFixed(1)} °C: ${err.message}`,
+        err.field.startsWith("plant.condensers.") ? `operation.circuits.${p.c.id}.minCondensingC` : err.field,
+        err.allowed,
+      );
     throw err;
   }
 }
