@@ -16,7 +16,7 @@ import type { CircuitInput } from "../plant/schema";
 import { getFluid as thermoGetFluid } from "../thermo";
 import type { Fluid, FluidId } from "../thermo/types";
 import { controlSource, defaultCapacityControl, powerFraction } from "./part-load";
-import { buildRoomHourModel, directRoomHour, fastRoomHour, roomHourParts, type HourFactors, type RoomHourModel } from "./room-hours";
+import { buildRoomHourModel, directRoomHour, fastRoomHour, roomHourParts, type HourFactors, type LoadAndMoisture, type RoomHourModel } from "./room-hours";
 import { circuitOperationSchema, operationSchema, type CapacityControl, type CircuitOperation, type OperationInput } from "./schema";
 import { calendarOf, hourLabel, validateWeatherYear, type Calendar, type WeatherYear } from "./weather";
 
@@ -302,13 +302,17 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
    * One room's day: the load of each hour without fans and defrost (into `base`), the day's
    * moisture and so its defrosts, and each evaporator's fan and defrost power that day.
    */
+  const fast: LoadAndMoisture = { w: 0, moistureKgS: 0 };
+  const f: HourFactors = { product: 1, people: 1, lights: 1 };
   const evalDay = (m: RoomHourModel, evs: EvaporatorSizing[], d: number, base: Float64Array) => {
     let moistureKg = 0;
+    const wd = cal.weekday[d * 24];
+    f.product = dayFactor[d];
     for (let h = 0; h < 24; h++) {
       const i = d * 24 + h;
-      const wd = cal.weekday[i];
-      const f = factorsAt(i);
-      const fast = fastRoomHour(m, h, wd, f, air[i]);
+      f.people = op.people ? op.people[wd][h] : 1;
+      f.lights = op.lights ? op.lights[wd][h] : 1;
+      fastRoomHour(m, h, wd, f, air[i], fast);
       base[h] = method === "direct" ? directRoomHour(m, h, wd, f, air[i], lctx) : fast.w;
       moistureKg += fast.moistureKgS * 3600;
     }
@@ -347,6 +351,13 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
     const base = new Float64Array(24);
     let loadWh = 0;
     let defrosts = 0;
+    // Per evaporator, looked up once: its circuit, pump input per W, and the room's 1/T for the Carnot sums.
+    const entries = evs.map((e) => {
+      const plan = plans.get(e.circuitId);
+      return { e, plan, pumpK: plan ? pumpPerW(plan, e, getFluid) : 0 };
+    });
+    const invT = 1 / (r.setPointC + K0);
+    const shareOf = evs.length ? 1 / evs.length : 0;
     for (let d = 0; d < cal.days; d++) {
       const { perEvap, fanHeatW, defrostHeatW, defrostsPerDay } = evalDay(m, evs, d, base);
       defrosts += defrostsPerDay;
@@ -354,21 +365,21 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
         const i = d * 24 + h;
         const q = Math.max(0, base[h] + fanHeatW + defrostHeatW);
         loadWh += q;
-            for (const pe of perEvap) {
-          const plan = plans.get(pe.e.circuitId);
+        const share = q * shareOf;
+        for (let k = 0; k < entries.length; k++) {
+          const { plan, e, pumpK } = entries[k];
           if (!plan) continue;
-          const share = q / evs.length;
           plan.load[i] += share;
           if (method === "direct") {
             plan.evapDuty ??= new Map();
-            let a = plan.evapDuty.get(pe.e.id);
-            if (!a) plan.evapDuty.set(pe.e.id, (a = new Float64Array(hours)));
+            let a = plan.evapDuty.get(e.id);
+            if (!a) plan.evapDuty.set(e.id, (a = new Float64Array(hours)));
             a[i] += share;
           }
-          plan.entropy[i] += share / (r.setPointC + K0);
-          plan.pump[i] += pumpPerW(plan, pe.e, getFluid) * share;
-          plan.evapFans[i] += pe.fanW;
-          plan.defrost[i] += pe.electricW;
+          plan.entropy[i] += share * invT;
+          plan.pump[i] += pumpK * share;
+          plan.evapFans[i] += perEvap[k].fanW;
+          plan.defrost[i] += perEvap[k].electricW;
         }
       }
     }
@@ -673,12 +684,17 @@ function buildTable(
     swept[k] = x.swept;
     oil[k] = x.oil;
   }
+  // One result object, rewritten per call: the hourly loop allocates nothing.
+  const out = { shaft: shaft[0], swept: swept[0], oil: oil[0] };
   return (tc) => {
+    if (n === 1) return out;
     const u = (tc - t0) / step;
     const k = Math.min(n - 2, Math.max(0, Math.floor(u)));
-    if (n === 1) return { shaft: shaft[0], swept: swept[0], oil: oil[0] };
     const f = u - k;
-    return { shaft: shaft[k] + f * (shaft[k + 1] - shaft[k]), swept: swept[k] + f * (swept[k + 1] - swept[k]), oil: oil[k] + f * (oil[k + 1] - oil[k]) };
+    out.shaft = shaft[k] + f * (shaft[k + 1] - shaft[k]);
+    out.swept = swept[k] + f * (swept[k + 1] - swept[k]);
+    out.oil = oil[k] + f * (oil[k + 1] - oil[k]);
+    return out;
   };
 }
 
