@@ -271,8 +271,9 @@ describe("bad input names the field and the range", () => {
     expect(e.message).toMatch(/between -10 and 50/);
     const e2 = thrown(() => parseOperation({ lights: [[1]] }));
     expect(e2.field).toMatch(/^operation\.lights/);
-    const e3 = thrown(() => parseOperation({ circuits: { nope: {} } }, demo()));
-    expect(e3.field).toBe("operation.circuits.nope");
+    // An entry for a circuit this plant does not have (a deleted one, or another option's) is ignored and named.
+    const r3 = runAnnual(demo({ circuits: { nope: { minCondensingC: 30 } } }), constantYear(10, 70));
+    expect(r3.warnings).toContain('operation.circuits.nope: no circuit with id "nope" in this plant; ignored');
     const e4 = thrown(() => parseOperation({ tariff: { kind: "flat", pricePerKWh: -1 } }));
     expect(e4.field).toBe("operation.tariff.pricePerKWh");
     expect(e4.message).toMatch(/between 0 and 100/);

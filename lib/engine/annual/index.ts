@@ -151,16 +151,23 @@ export interface HourTrace {
 }
 
 /** Validates the `operation` section (defaults filled); errors name `operation.<path>` and the range. */
-export function parseOperation(raw: unknown, model?: Pick<FacilityModel, "plant" | "doors">): OperationInput {
+export function parseOperation(raw: unknown): OperationInput {
   const r = operationSchema.safeParse(raw ?? {});
   if (!r.success) throw new LoadInputError(r.error.issues.map((i) => ({ field: ["operation", ...i.path.map(String)].join("."), message: i.message })));
-  if (model) {
-    const circuits = new Set(model.plant.circuits.map((c) => c.id));
-    for (const id of Object.keys(r.data.circuits)) if (!circuits.has(id)) fail(`operation.circuits.${id}`, `no circuit with id "${id}"`);
-    const doors = new Set(model.doors.map((d) => d.id));
-    for (const id of Object.keys(r.data.doorTraffic.byDoor)) if (!doors.has(id)) fail(`operation.doorTraffic.byDoor.${id}`, `no door with id "${id}"`);
-  }
   return r.data;
+}
+
+/**
+ * Entries of `operation` for circuits or doors the model does not have (left by a deleted
+ * item, or kept for another plant option's circuits): ignored, each named in a warning.
+ */
+export function operationWarnings(op: OperationInput, model: Pick<FacilityModel, "plant" | "doors">): string[] {
+  const out: string[] = [];
+  const circuits = new Set(model.plant.circuits.map((c) => c.id));
+  for (const id of Object.keys(op.circuits)) if (!circuits.has(id)) out.push(`operation.circuits.${id}: no circuit with id "${id}" in this plant; ignored`);
+  const doors = new Set(model.doors.map((d) => d.id));
+  for (const id of Object.keys(op.doorTraffic.byDoor)) if (!doors.has(id)) out.push(`operation.doorTraffic.byDoor.${id}: no door with id "${id}"; ignored`);
+  return out;
 }
 
 function ledgerPart(m: FacilityModel): LedgerInput {
@@ -211,7 +218,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
   const step = opts.gridStepK ?? 0.5;
   if (!(step > 0 && step <= 5)) fail("gridStepK", "must be greater than 0 and at most 5 K");
   validateWeatherYear(weather);
-  const op = parseOperation((model as { operation?: unknown }).operation, model);
+  const op = parseOperation((model as { operation?: unknown }).operation);
   const getFluid = opts.getFluid ?? thermoGetFluid;
   const design = computeFacility(model, { getFluid });
   const lctx = contextFromParsed(ledgerPart(model));
@@ -235,7 +242,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
   const designById = new Map(design.plant.circuits.map((r) => [r.id, r]));
   const sizedByRoom = new Map<string, EvaporatorSizing[]>();
   for (const s of design.plant.evaporators) sizedByRoom.set(s.roomId, [...(sizedByRoom.get(s.roomId) ?? []), s]);
-  const warnings: string[] = [];
+  const warnings: string[] = operationWarnings(op, model);
   const rooms = new Map(model.rooms.map((r) => [r.id, { setPointC: r.setPointC, rhPct: r.rhPct }]));
 
   // Circuits -------------------------------------------------------------------------------
