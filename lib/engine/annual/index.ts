@@ -503,6 +503,12 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
       ...figures(acc, cal, weather, price, op, vol, tonnesC, p.c.heatRejection.to === "condenser", [
         `capacity control: ${controlSource(p.control)}`,
         p.fixedC !== undefined ? `condensing held at ${p.fixedC} °C all year` : `condensing = sink + ${p.approachK} K, not below ${p.minC} °C`,
+        {
+          speed: `condenser fans speed-controlled: P = P_design·x³ (fan laws) above ${p.op.condenserFanMinSpeed} of full speed, cycling below`,
+          staged: `condenser fans in ${p.op.condenserFanStages} on/off stages: P = P_design·⌈x·N⌉/N`,
+          proportional: "condenser fans in proportion to the airflow needed: P = P_design·x",
+        }[p.op.condenserFanControl] + "; x = (Q_rej/Q_rej,design)·(approach/(T_cond − T_sink))",
+        "compressor capacity = design swept volume ÷ swept volume per W at the hour's temperatures; PLR = (load + pump input) ÷ capacity",
       ], {
         designSweptVolumeM3s: designSwept,
         designCondenserFanW: fanDesignW,
@@ -519,7 +525,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
     totals.loadW[i] = 0;
     totals.carnotW[i] = 0;
   }
-  facilityChains(plans, perCircuitAcc, totals, hours, model, weather, wetBulb);
+  facilityChains(plans, perCircuitAcc, totals, hours);
   const facility = figures(totals, cal, weather, price, op, volumeM3, tonnes, true, [
     "facility: refrigeration is the rooms' load served; work is every circuit's compressor shaft and pump input (cascade heat is inside the chain)",
   ], { rooms: model.rooms.length, circuits: plans.size, volumeM3, tonnesPerYear: tonnes });
@@ -817,9 +823,6 @@ function facilityChains(
   accs: Map<string, Accumulator>,
   totals: Accumulator,
   hours: number,
-  _model: FacilityModel,
-  _weather: WeatherYear,
-  _wet: Float64Array,
 ): void {
   const top = (id: string): string => {
     let cur = plans.get(id)!;
