@@ -8,9 +8,10 @@ import {
   type TempConvention,
   type ValidityRange,
 } from "../types";
-import { BLEND_DEFS, GWP_AR4, kij, type BlendDef, type BlendId } from "./blend-defs";
-import { COMPONENTS, type ComponentId } from "./components";
-import { LIQUID_ROOT, newPhaseEval, PengRobinsonMixture, VAPOUR_ROOT, type PhaseEval } from "./peng-robinson";
+import { BLEND_DEFS, GWP_AR4, type BlendDef, type BlendId } from "./blend-defs";
+import type { ComponentId } from "./component";
+import { COMPONENTS } from "./components";
+import { LIQUID_ROOT, MixtureModel, newPhaseEval, VAPOUR_ROOT, type PhaseEval } from "./kunz-wagner";
 import { UniformSplines } from "./spline";
 import { solveFixedBeta, twoPhaseMass, type TwoPhaseSolution } from "./vle";
 
@@ -26,7 +27,7 @@ const BETA_NODES = Array.from({ length: N_BETA }, (_, j) => 0.5 * (1 - Math.cos(
 // Barycentric weights of Chebyshev–Lobatto nodes: (−1)^j, halved at the ends (Berrut & Trefethen, SIAM Rev. 46, 2004).
 const BARY_W = BETA_NODES.map((_, j) => (j % 2 === 0 ? 1 : -1) * (j === 0 || j === N_BETA - 1 ? 0.5 : 1));
 
-// Series layout in the spline set: per β node j, T, h, s, v, q; then cp of both boundaries and w of the dew-point vapour.
+// Series layout in the spline set: per β node j, T, h, s, v, q; then cp of both boundaries, w of the dew-point vapour and of the bubble-point liquid.
 const S_T = 0;
 const S_H = 1;
 const S_S = 2;
@@ -36,6 +37,7 @@ const PER_BETA = 5;
 const S_CPL = N_BETA * PER_BETA;
 const S_CPV = S_CPL + 1;
 const S_WV = S_CPL + 2;
+const S_WL = S_CPL + 3;
 const idx = (j: number, q: number) => j * PER_BETA + q;
 
 /** Mass-based single-phase properties of the blend at its overall composition. */
@@ -44,12 +46,11 @@ interface MassProps {
   sJkgK: number;
   densityKgM3: number;
   cpJkgK: number;
-  /** Vapour only: PR's liquid speed of sound is about 20 % low for these fluids, so it is not given. */
-  speedOfSoundMs?: number;
+  speedOfSoundMs: number;
 }
 
 /**
- * One refrigerant blend on the Peng–Robinson model (see README.md of the thermo module).
+ * One refrigerant blend on the multi-fluid Helmholtz mixture model (see README.md of the thermo module).
  *
  * Saturation, two-phase states and the phase boundaries come from a table built once, when the
  * blend is created: at 121 pressures (uniform in ln P, from the dew pressure at −60 °C to
@@ -61,12 +62,12 @@ interface MassProps {
  * Saturation states are at one pressure: `pBubblePa === pDewPa`, the liquid is the bubble-point
  * liquid and the vapour the dew-point vapour at that pressure, and `glideK = tDew − tBubble`.
  */
-export class CubicBlend implements Fluid {
+export class HelmholtzBlend implements Fluid {
   readonly meta: FluidMeta;
   readonly range: ValidityRange;
   /** Lowest pressure served, Pa (dew pressure at −60 °C, less 2 %). */
   readonly pMinPa: number;
-  readonly mix: PengRobinsonMixture;
+  readonly mix: MixtureModel;
   readonly z: Float64Array;
   private readonly molarMass: number;
   private hOffset = 0;
@@ -101,7 +102,7 @@ export class CubicBlend implements Fluid {
   private buildTable(): UniformSplines {
     const u0 = Math.log(this.pMinPa);
     const du = (Math.log(this.range.pMaxPa) - u0) / (N_P - 1);
-    const series = Array.from({ length: S_WV + 1 }, () => new Float64Array(N_P));
+    const series = Array.from({ length: S_WL + 1 }, () => new Float64Array(N_P));
     let prev: TwoPhaseSolution[] = [];
     for (let i = 0; i < N_P; i++) {
       const p = Math.exp(u0 + i * du);
@@ -117,34 +118,32 @@ export class CubicBlend implements Fluid {
         series[idx(j, S_V)][i] = m.vM3kg;
         series[idx(j, S_Q)][i] = j === 0 ? 0 : j === N_BETA - 1 ? 1 : m.quality;
       }
-      const liq = this.phaseMass(sols[0].liquid, LIQUID_ROOT);
-      const vap = this.phaseMass(sols[N_BETA - 1].vapour, VAPOUR_ROOT);
+      const liq = this.phaseMass(sols[0].liquid);
+      const vap = this.phaseMass(sols[N_BETA - 1].vapour);
       series[S_CPL][i] = liq.cpJkgK;
       series[S_CPV][i] = vap.cpJkgK;
-      series[S_WV][i] = vap.speedOfSoundMs ?? 0;
+      series[S_WV][i] = vap.speedOfSoundMs;
+      series[S_WL][i] = liq.speedOfSoundMs;
       prev = sols;
     }
     return new UniformSplines(u0, du, series);
   }
 
   /** Mass-based properties of one evaluated phase (composition = that phase's own). */
-  private phaseMass(e: PhaseEval, root: 0 | 1): MassProps {
+  private phaseMass(e: PhaseEval): MassProps {
     const m = e.molarMassKgMol;
-    const cp = e.cpJmolK;
-    const out: MassProps = {
+    return {
       hJkg: e.hJmol / m + this.hOffset,
       sJkgK: e.sJmolK / m + this.sOffset,
       densityKgM3: m / e.vM3Mol,
-      cpJkgK: cp / m,
+      cpJkgK: e.cpJmolK / m,
+      speedOfSoundMs: e.speedOfSoundMs,
     };
-    // w² = −(v²/M)·(cp/cv)·(∂P/∂v)_T
-    if (root === VAPOUR_ROOT) out.speedOfSoundMs = Math.sqrt((-(e.vM3Mol * e.vM3Mol) / m) * (cp / e.cvJmolK) * e.dPdvT);
-    return out;
   }
 
   private singlePhase(tK: number, pPa: number, root: 0 | 1): MassProps {
     this.mix.evaluate(tK, pPa, this.z, root, false, this.ev);
-    return this.phaseMass(this.ev, root);
+    return this.phaseMass(this.ev);
   }
 
   private checkP(pPa: number): void {
@@ -180,6 +179,7 @@ export class CubicBlend implements Fluid {
       hJkg: t.value(idx(0, S_H)),
       sJkgK: t.value(idx(0, S_S)),
       cpJkgK: t.value(S_CPL),
+      speedOfSoundMs: t.value(S_WL),
     };
     const vapour: PhaseProps = {
       tK: td,
@@ -417,22 +417,27 @@ export class CubicBlend implements Fluid {
   /** Full VLE solve (no table) of the bubble (β = 0) or dew (β = 1) point at temperature tK. */
   exactSaturationAtT(tK: number, beta: 0 | 1): { pPa: number; densityKgM3: number; hJkg: number; sJkgK: number } {
     const sol = solveFixedBeta(this.mix, this.z, "T", tK, beta);
-    const m = beta === 0 ? this.phaseMass(sol.liquid, LIQUID_ROOT) : this.phaseMass(sol.vapour, VAPOUR_ROOT);
+    const m = beta === 0 ? this.phaseMass(sol.liquid) : this.phaseMass(sol.vapour);
     return { pPa: sol.pPa, densityKgM3: m.densityKgM3, hJkg: m.hJkg, sJkgK: m.sJkgK };
   }
 }
 
-function buildMixture(def: BlendDef): { mix: PengRobinsonMixture; z: Float64Array; ids: ComponentId[]; w: number[] } {
+const mixtureCache = new Map<string, MixtureModel>();
+
+function buildMixture(def: BlendDef): { mix: MixtureModel; z: Float64Array; ids: ComponentId[]; w: number[] } {
   const ids = Object.keys(def.massFractions) as ComponentId[];
   const comps = ids.map((i) => COMPONENTS[i]);
   const w = ids.map((i) => def.massFractions[i] ?? 0);
-  const moles = w.map((wi, k) => wi / comps[k].molarMassKgMol);
+  const moles = w.map((wi, k) => wi / comps[k].eos.molarMassKgMol);
   const total = moles.reduce((a, b) => a + b, 0);
   const z = Float64Array.from(moles, (m) => m / total);
-  const override = (a: ComponentId, b: ComponentId) => def.kijOverride?.[`${a}/${b}`] ?? def.kijOverride?.[`${b}/${a}`];
-  const k0 = ids.map((a) => ids.map((b) => (a === b ? 0 : (override(a, b) ?? kij(a, b)[0]))));
-  const k1 = ids.map((a) => ids.map((b) => (a === b ? 0 : kij(a, b)[1])));
-  return { mix: new PengRobinsonMixture(comps, k0, k1), z, ids, w };
+  const key = ids.join("/");
+  let mix = mixtureCache.get(key);
+  if (!mix) {
+    mix = new MixtureModel(comps);
+    mixtureCache.set(key, mix);
+  }
+  return { mix, z, ids, w };
 }
 
 const metaCache = new Map<BlendId, FluidMeta>();
@@ -462,19 +467,19 @@ export function blendMetaOf(def: BlendDef): FluidMeta {
     odp: 0,
     composition: Object.fromEntries(ids.map((c, k) => [c, w[k]])),
     zeotropic: def.zeotropic,
-    model: "Peng–Robinson, Mathias–Copeman alpha, Péneloux shift, vdW one-fluid mixing (cubic)",
+    model: "Multi-fluid Helmholtz mixture model (Kunz–Wagner form; reference equations of the components, published binary parameters)",
   };
   metaCache.set(id, meta);
   return meta;
 }
 
-const cache = new Map<BlendId, CubicBlend>();
+const cache = new Map<BlendId, HelmholtzBlend>();
 
 /** The blend model for an id, built (and its tables computed) on first use, then cached. */
-export function getCubicBlend(id: BlendId): CubicBlend {
+export function getBlend(id: BlendId): HelmholtzBlend {
   let b = cache.get(id);
   if (!b) {
-    b = new CubicBlend(BLEND_DEFS[id]);
+    b = new HelmholtzBlend(BLEND_DEFS[id]);
     cache.set(id, b);
   }
   return b;
