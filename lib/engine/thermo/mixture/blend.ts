@@ -11,7 +11,7 @@ import {
 import { BLEND_DEFS, GWP_AR4, type BlendDef, type BlendId } from "./blend-defs";
 import type { ComponentId } from "./component";
 import { COMPONENTS } from "./components";
-import { LIQUID_ROOT, MixtureModel, newPhaseEval, VAPOUR_ROOT, type PhaseEval } from "./kunz-wagner";
+import { FixedMixture, LIQUID_ROOT, MixtureModel, newFixedState, VAPOUR_ROOT, type FixedState, type PhaseEval } from "./kunz-wagner";
 import { UniformSplines } from "./spline";
 import { solveFixedBeta, twoPhaseMass, type TwoPhaseSolution } from "./vle";
 
@@ -73,7 +73,13 @@ export class HelmholtzBlend implements Fluid {
   private hOffset = 0;
   private sOffset = 0;
   private readonly table: UniformSplines;
-  private readonly ev: PhaseEval = newPhaseEval();
+  /** The mixture at the overall composition, compiled for single-phase states. */
+  readonly fixedMix: FixedMixture;
+  private readonly fs: FixedState = newFixedState();
+  /** Last single-phase density per branch (mol/m³), seeding the next solve. */
+  private lastRho = [0, 0];
+  /** Whether the last `solveSingle` converged on its fast path (then `fs` is that state). */
+  private fastOk = false;
   // Scratch for the β-direction values at the located pressure.
   private readonly bh = new Float64Array(N_BETA);
   private readonly bs = new Float64Array(N_BETA);
@@ -86,6 +92,7 @@ export class HelmholtzBlend implements Fluid {
     this.mix = mix;
     this.z = z;
     this.molarMass = mix.molarMass(z);
+    this.fixedMix = mix.fixed(z);
 
     // IIR reference: h = 200 kJ/kg, s = 1 kJ/(kg·K) for the bubble-point liquid at 0 °C.
     const ref = solveFixedBeta(mix, z, "T", 273.15, 0);
@@ -142,8 +149,22 @@ export class HelmholtzBlend implements Fluid {
   }
 
   private singlePhase(tK: number, pPa: number, root: 0 | 1): MassProps {
-    this.mix.evaluate(tK, pPa, this.z, root, false, this.ev);
-    return this.phaseMass(this.ev);
+    const f = this.fixedMix;
+    const rho = f.density(tK, pPa, root, this.lastRho[root]);
+    this.lastRho[root] = rho;
+    return this.fixedMass(f.at(rho, tK, this.fs));
+  }
+
+  /** Mass-based properties of a state of the overall composition. */
+  private fixedMass(st: FixedState): MassProps {
+    const m = this.molarMass;
+    return {
+      hJkg: st.h / m + this.hOffset,
+      sJkgK: st.s / m + this.sOffset,
+      densityKgM3: st.rho * m,
+      cpJkgK: st.cp / m,
+      speedOfSoundMs: st.w,
+    };
   }
 
   private checkP(pPa: number): void {
@@ -374,22 +395,71 @@ export class HelmholtzBlend implements Fluid {
     }
     const liquid = target < xb;
     const root = liquid ? LIQUID_ROOT : VAPOUR_ROOT;
-    // Start from the saturated phase, one cp-step away from it.
-    const tSat = liquid ? this.table.value(idx(0, S_T)) : this.table.value(idx(N_BETA - 1, S_T));
-    const cpSat = liquid ? this.table.value(S_CPL) : this.table.value(S_CPV);
+    const tK = this.solveSingle(pPa, target, kind, root, xb, xd, field);
+    // on the fast path `this.fs` holds the converged state at exactly this temperature
+    if (this.fs.tK === tK && this.fastOk) {
+      return { phase: liquid ? "liquid" : "vapour", tK, pPa, ...this.fixedMass(this.fs) };
+    }
+    return this.single(pPa, tK, root);
+  }
+
+  /**
+   * Temperature of the single-phase state at (P, h) or (P, s): Newton's method on the pair
+   * p(ρ, T) = P, y(ρ, T) = target in (ρ, T) together, one evaluation of the equation per step
+   * (Span 2000, Table 3.3 derivatives), started one cp-step from the saturated phase of the
+   * table; a step that leaves the phase's branch ((∂p/∂ρ)_T ≤ 0) or the range is halved.
+   */
+  private solveSingle(pPa: number, target: number, kind: "h" | "s", root: 0 | 1, xb: number, xd: number, field: string): number {
+    const liquid = root === LIQUID_ROOT;
+    const f = this.fixedMix;
+    const m = this.molarMass;
+    const t = this.table;
+    const tSat = liquid ? t.value(idx(0, S_T)) : t.value(idx(N_BETA - 1, S_T));
+    const cpSat = liquid ? t.value(S_CPL) : t.value(S_CPV);
+    const rhoSat = (liquid ? 1 / t.value(idx(0, S_V)) : 1 / t.value(idx(N_BETA - 1, S_V))) / m;
     const dxSat = target - (liquid ? xb : xd);
     let tK = kind === "h" ? tSat + dxSat / cpSat : tSat * Math.exp(dxSat / cpSat);
-    let m: MassProps | undefined;
-    for (let it = 0; it < 50; it++) {
-      tK = Math.min(T_MAX_K + 60, Math.max(T_MIN_K - 30, tK));
-      m = this.singlePhase(tK, pPa, root);
-      const x = kind === "h" ? m.hJkg : m.sJkgK;
-      const dx = kind === "h" ? m.cpJkgK : m.cpJkgK / tK;
-      let step = (x - target) / dx;
-      step = Math.max(-40, Math.min(40, step));
-      tK -= step;
-      if (Math.abs(step) < 1e-9) break;
+    tK = Math.min(T_MAX_K + 60, Math.max(T_MIN_K - 30, tK));
+    // molar target in the equation's own reference
+    const yTarget = ((kind === "h" ? target - this.hOffset : target - this.sOffset) * m);
+    // density start: the saturated phase's, scaled as an ideal gas for vapour (same pressure)
+    let rho = liquid ? rhoSat : (rhoSat * tSat) / tK;
+    const st = this.fs;
+    let ok = false;
+    for (let it = 0; it < 60; it++) {
+      f.at(rho, tK, st);
+      const F1 = st.p - pPa;
+      const y = kind === "h" ? st.h : st.s;
+      const F2 = y - yTarget;
+      const yr = kind === "h" ? st.dhdrho : st.dsdrho;
+      const yt = kind === "h" ? st.dhdT : st.dsdT;
+      const det = st.dpdrho * yt - st.dpdT * yr;
+      let dRho = -(F1 * yt - F2 * st.dpdT) / det;
+      let dT = -(st.dpdrho * F2 - yr * F1) / det;
+      if (!Number.isFinite(dRho) || !Number.isFinite(dT) || !(st.dpdrho > 0)) break;
+      // keep the step modest: 30 % in density, 40 K in temperature
+      let g = 1;
+      if (Math.abs(dRho) > 0.3 * rho) g = Math.min(g, (0.3 * rho) / Math.abs(dRho));
+      if (Math.abs(dT) > 40) g = Math.min(g, 40 / Math.abs(dT));
+      dRho *= g;
+      dT *= g;
+      rho += dRho;
+      tK += dT;
+      if (Math.abs(dT) < 1e-9 * tK && Math.abs(dRho) < 1e-11 * rho && Math.abs(F1) < 1e-7 * pPa) {
+        ok = true;
+        break;
+      }
     }
+    if (ok) {
+      // confirm the branch: a converged (ρ, T) must be mechanically stable and on the asked side
+      f.at(rho, tK, st);
+      const tb = t.value(idx(0, S_T));
+      const td = t.value(idx(N_BETA - 1, S_T));
+      if (!(st.dpdrho > 0) || (liquid ? tK > tb + 1e-6 : tK < td - 1e-6)) ok = false;
+    }
+    this.fastOk = ok;
+    if (!ok) tK = this.solveSingleNested(pPa, target, kind, root, tSat, cpSat, dxSat);
+    else this.lastRho[root] = rho;
     // A state exactly at a limit may converge a rounding error beyond it.
     if (tK > T_MIN_K - 1e-7 && tK < T_MIN_K) tK = T_MIN_K;
     if (tK < T_MAX_K + 1e-7 && tK > T_MAX_K) tK = T_MAX_K;
@@ -404,7 +474,23 @@ export class HelmholtzBlend implements Fluid {
         liquid ? { min: xLimit, unit } : { max: xLimit, unit },
       );
     }
-    return this.single(pPa, tK, root);
+    return tK;
+  }
+
+  /** Fallback: Newton in T along the isobar, a density solve per step (dh/dT = cp, ds/dT = cp/T). */
+  private solveSingleNested(pPa: number, target: number, kind: "h" | "s", root: 0 | 1, tSat: number, cpSat: number, dxSat: number): number {
+    let tK = kind === "h" ? tSat + dxSat / cpSat : tSat * Math.exp(dxSat / cpSat);
+    for (let it = 0; it < 50; it++) {
+      tK = Math.min(T_MAX_K + 60, Math.max(T_MIN_K - 30, tK));
+      const mp = this.singlePhase(tK, pPa, root);
+      const x = kind === "h" ? mp.hJkg : mp.sJkgK;
+      const dx = kind === "h" ? mp.cpJkgK : mp.cpJkgK / tK;
+      let step = (x - target) / dx;
+      step = Math.max(-40, Math.min(40, step));
+      tK -= step;
+      if (Math.abs(step) < 1e-9) break;
+    }
+    return tK;
   }
 
   /** Full VLE solve (no table) of the two-phase state at P and vapour mole fraction β, mass based. */

@@ -19,7 +19,7 @@
  *
  * The object keeps scratch arrays, so the hot loops allocate nothing.
  */
-import { HelmholtzEos, newAlpha, type AlphaDerivs } from "../helmholtz/eos";
+import { HelmholtzEos, newAlpha, type AlphaDerivs, type HelmholtzEosData } from "../helmholtz/eos";
 import { reducingOf, type DepartureFunction } from "./binary";
 import type { ComponentData, ComponentId } from "./component";
 
@@ -172,8 +172,11 @@ export class MixtureModel {
   private tr = 0;
   private vr = 0;
 
+  private readonly data: readonly ComponentData[];
+
   constructor(data: readonly ComponentData[]) {
     const n = data.length;
+    this.data = data;
     this.n = n;
     this.eos = data.map((c) => new HelmholtzEos(c.eos));
     this.tc = Float64Array.from(data, (c) => c.eos.tReducingK);
@@ -206,6 +209,11 @@ export class MixtureModel {
     this.arPair = new Float64Array(pairs.length);
     this.dTr = new Float64Array(n);
     this.dVr = new Float64Array(n);
+  }
+
+  /** The mixture at one fixed composition, compiled into one equation (single-phase states). */
+  fixed(x: ArrayLike<number>): FixedMixture {
+    return new FixedMixture(this, this.data, this.pairs, x);
   }
 
   /** Molar mass of a composition, kg/mol. */
@@ -428,6 +436,233 @@ export class MixtureModel {
       this.lnPhi[i] = r.ar + nda - lnZ;
     }
   }
+}
+
+/**
+ * The mixture at one fixed composition (a blend's overall composition): the reducing
+ * functions are constants, so α^r becomes one sum of terms in (δ, τ). The components'
+ * power, Gaussian and non-analytic terms are merged, each coefficient multiplied by x_i, and
+ * the exponential-form departure functions by x_i·x_j·F_ij, into one equation that the pure
+ * fluids' evaluator runs; the GERG-form departure functions (an exp(−β·δ) factor that evaluator
+ * has no term for) are evaluated beside it. The single-phase states of a blend use this.
+ */
+export class FixedMixture {
+  readonly tr: number;
+  readonly vr: number;
+  /** Molar gas constant, J/(mol·K). */
+  readonly r: number;
+  readonly molarMassKgMol: number;
+  private readonly eos: HelmholtzEos;
+  private readonly deps: { dep: CompiledDeparture; w: number }[];
+  private readonly ideal: { eos: HelmholtzEos; x: number; tc: number; rhoc: number }[];
+  private readonly mixTerm: number;
+  private readonly a = newAlpha();
+  private readonly b = newAlpha();
+
+  constructor(model: MixtureModel, components: readonly ComponentData[], pairs: readonly Pair[], x: ArrayLike<number>) {
+    const { tr, vr } = model.reducing(x, false);
+    this.tr = tr;
+    this.vr = vr;
+    this.r = model.gasConstant(x);
+    this.molarMassKgMol = model.molarMass(x);
+    const pw = { n: [] as number[], d: [] as number[], t: [] as number[], l: [] as number[], m: [] as number[] };
+    const gs = { n: [] as number[], d: [] as number[], t: [] as number[], eta: [] as number[], epsilon: [] as number[], beta: [] as number[], gamma: [] as number[] };
+    const na = { n: [] as number[], a: [] as number[], b: [] as number[], beta: [] as number[], A: [] as number[], B: [] as number[], C: [] as number[], D: [] as number[] };
+    components.forEach((c, i) => {
+      const w = x[i];
+      const e = c.eos;
+      if (e.power) {
+        e.power.n.forEach((v, k) => {
+          pw.n.push(w * v);
+          pw.d.push(e.power!.d[k]);
+          pw.t.push(e.power!.t[k]);
+          pw.l.push(e.power!.l[k]);
+          pw.m.push(e.power!.m?.[k] ?? 0);
+        });
+      }
+      if (e.gaussian) {
+        const g = e.gaussian;
+        g.n.forEach((v, k) => {
+          gs.n.push(w * v);
+          gs.d.push(g.d[k]);
+          gs.t.push(g.t[k]);
+          gs.eta.push(g.eta[k]);
+          gs.epsilon.push(g.epsilon[k]);
+          gs.beta.push(g.beta[k]);
+          gs.gamma.push(g.gamma[k]);
+        });
+      }
+      if (e.nonAnalytic) {
+        const q = e.nonAnalytic;
+        q.n.forEach((v, k) => {
+          na.n.push(w * v);
+          na.a.push(q.a[k]);
+          na.b.push(q.b[k]);
+          na.beta.push(q.beta[k]);
+          na.A.push(q.A[k]);
+          na.B.push(q.B[k]);
+          na.C.push(q.C[k]);
+          na.D.push(q.D[k]);
+        });
+      }
+    });
+    this.deps = [];
+    for (const p of pairs) {
+      if (!p.dep) continue;
+      const w = x[p.i] * x[p.j] * p.F;
+      const d = p.dep;
+      const exponentialOnly = d.eta.every((v) => v === 0) && d.beta.every((v) => v === 0);
+      if (exponentialOnly) {
+        d.n.forEach((v, k) => {
+          pw.n.push(w * v);
+          pw.d.push(d.d[k]);
+          pw.t.push(d.t[k]);
+          pw.l.push(d.l[k]);
+          pw.m.push(0);
+        });
+      } else {
+        this.deps.push({ dep: d, w });
+      }
+    }
+    const data: HelmholtzEosData = {
+      tReducingK: tr,
+      rhoReducingKgM3: this.molarMassKgMol / vr,
+      gasConstantJmolK: this.r,
+      molarMassKgMol: this.molarMassKgMol,
+      ideal: { a1: 0, a2: 0, logTau: 0 },
+      power: pw,
+      gaussian: gs.n.length ? gs : undefined,
+      nonAnalytic: na.n.length ? na : undefined,
+    };
+    this.eos = new HelmholtzEos(data);
+    this.ideal = components
+      .map((c, i) => ({ eos: new HelmholtzEos(c.eos), x: x[i], tc: c.eos.tReducingK, rhoc: c.eos.rhoReducingKgM3 / c.eos.molarMassKgMol }))
+      .filter((c) => c.x > 0);
+    let mixTerm = 0;
+    for (const c of this.ideal) mixTerm += c.x * (Math.log(c.x) - Math.log(c.rhoc));
+    this.mixTerm = mixTerm;
+  }
+
+  /** α^r and its reduced derivatives at (δ, τ) into `out`. */
+  residual(delta: number, tau: number, out: AlphaDerivs): AlphaDerivs {
+    this.eos.evaluate(delta, tau, out, true);
+    if (this.deps.length) {
+      const b = this.b;
+      for (const { dep, w } of this.deps) {
+        evalDeparture(dep, delta, tau, b);
+        out.ar += w * b.ar;
+        out.dAr += w * b.dAr;
+        out.ddAr += w * b.ddAr;
+        out.tAr += w * b.tAr;
+        out.ttAr += w * b.ttAr;
+        out.dtAr += w * b.dtAr;
+      }
+    }
+    return out;
+  }
+
+  /** Ideal part Σ x_i [a0_i(τ_i) + ln x_i − ln ρ_c,i] (without Σ x_i ln ρ) and its T-derivatives, into out.a0/tA0/ttA0. */
+  idealPart(tK: number, out: AlphaDerivs): void {
+    let a0 = this.mixTerm,
+      tA0 = 0,
+      ttA0 = 0;
+    const b = this.b;
+    for (const c of this.ideal) {
+      c.eos.evaluateIdeal(c.tc / tK, b);
+      a0 += c.x * b.a0;
+      tA0 += c.x * b.tA0;
+      ttA0 += c.x * b.ttA0;
+    }
+    out.a0 = a0;
+    out.tA0 = tA0;
+    out.ttA0 = ttA0;
+  }
+
+  /**
+   * Density (mol/m³) on a branch at (T, P): Newton on p(ρ) = P from `guess` (or from above for
+   * liquid, from the ideal gas for vapour), as in `MixtureModel`.
+   */
+  density(tK: number, pPa: number, root: RootKind, guess: number): number {
+    const rt = this.r * tK;
+    const tau = this.tr / tK;
+    const a = this.a;
+    const solve = (start: number): number => {
+      let rho = start;
+      for (let it = 0; it < 200; it++) {
+        this.residual(rho * this.vr, tau, a);
+        const p = rho * rt * (1 + a.dAr);
+        const dp = rt * (1 + 2 * a.dAr + a.ddAr);
+        if (!(dp > 0) || !Number.isFinite(p)) {
+          rho = root === LIQUID_ROOT ? rho * 1.05 : rho * 0.9;
+          continue;
+        }
+        let step = (p - pPa) / dp;
+        if (step > 0.5 * rho) step = 0.5 * rho;
+        if (step < -0.5 * rho) step = -0.5 * rho;
+        rho -= step;
+        if (Math.abs(step) < 1e-13 * rho) return rho;
+      }
+      return NaN;
+    };
+    const cold = root === LIQUID_ROOT ? 3.6 / this.vr : pPa / rt;
+    let rho = guess > 0 ? solve(guess) : NaN;
+    if (!Number.isFinite(rho)) rho = solve(cold);
+    if (!Number.isFinite(rho)) throw new Error(`blend density at T = ${tK} K, P = ${pPa} Pa did not converge`);
+    return rho;
+  }
+
+  /**
+   * State functions at (ρ, T) with the derivatives a (P, h) or (P, s) Newton step needs:
+   * p, (∂p/∂ρ)_T, (∂p/∂T)_ρ, h, (∂h/∂ρ)_T, (∂h/∂T)_ρ, s, (∂s/∂ρ)_T, (∂s/∂T)_ρ, cp, cv, w.
+   * Molar units; Span (2000) Table 3.3.
+   */
+  at(rho: number, tK: number, out: FixedState): FixedState {
+    const R = this.r;
+    const delta = rho * this.vr;
+    const tau = this.tr / tK;
+    const a = this.residual(delta, tau, this.a);
+    this.idealPart(tK, a);
+    const rt = R * tK;
+    const num = 1 + a.dAr - a.dtAr;
+    const den = 1 + 2 * a.dAr + a.ddAr;
+    const cvR = -(a.ttA0 + a.ttAr);
+    out.rho = rho;
+    out.tK = tK;
+    out.p = rho * rt * (1 + a.dAr);
+    out.dpdrho = rt * den;
+    out.dpdT = rho * R * num;
+    out.h = rt * (1 + a.dAr + a.tAr + a.tA0);
+    out.dhdrho = (rt * (a.dtAr + a.dAr + a.ddAr)) / rho;
+    out.dhdT = R * (cvR + num);
+    out.s = R * (a.tA0 + a.tAr - a.a0 - Math.log(rho) - a.ar);
+    out.dsdrho = (-R * num) / rho;
+    out.dsdT = (R * cvR) / tK;
+    out.cv = R * cvR;
+    out.cp = R * (cvR + (num * num) / den);
+    out.w = Math.sqrt(Math.max(0, (rt / this.molarMassKgMol) * (den + (num * num) / cvR)));
+    return out;
+  }
+}
+
+export interface FixedState {
+  rho: number;
+  tK: number;
+  p: number;
+  dpdrho: number;
+  dpdT: number;
+  h: number;
+  dhdrho: number;
+  dhdT: number;
+  s: number;
+  dsdrho: number;
+  dsdT: number;
+  cp: number;
+  cv: number;
+  w: number;
+}
+
+export function newFixedState(): FixedState {
+  return { rho: 0, tK: 0, p: 0, dpdrho: 0, dpdT: 0, h: 0, dhdrho: 0, dhdT: 0, s: 0, dsdrho: 0, dsdT: 0, cp: 0, cv: 0, w: 0 };
 }
 
 /** Builds the mixture model of the given components (order kept). */
