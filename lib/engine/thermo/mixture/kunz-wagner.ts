@@ -311,6 +311,12 @@ export class MixtureModel {
     return r;
   }
 
+  /** α^r at molar density ρ (mol/m³), T (K), composition x (for checks of the derivatives). */
+  alphaR(rhoMolM3: number, tK: number, x: ArrayLike<number>): number {
+    const { tr, vr } = this.reducing(x, false);
+    return this.residual(rhoMolM3 * vr, tr / tK, x).ar;
+  }
+
   /** Pressure (Pa) at molar density ρ (mol/m³), T (K), composition x. */
   pressure(rhoMolM3: number, tK: number, x: ArrayLike<number>): number {
     const { tr, vr } = this.reducing(x, false);
