@@ -111,11 +111,13 @@ export class HelmholtzBlend implements Fluid {
     const du = (Math.log(this.range.pMaxPa) - u0) / (N_P - 1);
     const series = Array.from({ length: S_WL + 1 }, () => new Float64Array(N_P));
     let prev: TwoPhaseSolution[] = [];
+    let prev2: TwoPhaseSolution[] = [];
     for (let i = 0; i < N_P; i++) {
       const p = Math.exp(u0 + i * du);
       const sols: TwoPhaseSolution[] = [];
       for (let j = 0; j < N_BETA; j++) {
-        const guess = prev[j] ?? sols[j - 1];
+        // linear extrapolation from the two previous pressures (ln K, T, densities)
+        const guess = prev[j] && prev2[j] ? extrapolate(prev[j], prev2[j]) : (prev[j] ?? sols[j - 1]);
         const sol = solveFixedBeta(this.mix, this.z, "P", p, BETA_NODES[j], guess);
         sols.push(sol);
         const m = twoPhaseMass(sol);
@@ -131,6 +133,7 @@ export class HelmholtzBlend implements Fluid {
       series[S_CPV][i] = vap.cpJkgK;
       series[S_WV][i] = vap.speedOfSoundMs;
       series[S_WL][i] = liq.speedOfSoundMs;
+      prev2 = prev;
       prev = sols;
     }
     return new UniformSplines(u0, du, series);
@@ -506,6 +509,28 @@ export class HelmholtzBlend implements Fluid {
     const m = beta === 0 ? this.phaseMass(sol.liquid) : this.phaseMass(sol.vapour);
     return { pPa: sol.pPa, densityKgM3: m.densityKgM3, hJkg: m.hJkg, sJkgK: m.sJkgK };
   }
+}
+
+/** A starting guess two grid steps on: 2·a − b in T, ln K and the densities. */
+function extrapolate(a: TwoPhaseSolution, b: TwoPhaseSolution): TwoPhaseSolution {
+  const n = a.x.length;
+  const x = new Float64Array(n);
+  const y = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    x[i] = a.x[i];
+    // K = y/x extrapolated in ln K
+    y[i] = a.x[i] * Math.exp(2 * Math.log(a.y[i] / a.x[i]) - Math.log(b.y[i] / b.x[i]));
+  }
+  const rho = (ra: number, rb: number) => (2 * ra - rb > 0 ? 2 * ra - rb : ra);
+  return {
+    tK: 2 * a.tK - b.tK,
+    pPa: a.pPa,
+    beta: a.beta,
+    x,
+    y,
+    liquid: { ...a.liquid, rhoMolM3: rho(a.liquid.rhoMolM3, b.liquid.rhoMolM3) },
+    vapour: { ...a.vapour, rhoMolM3: rho(a.vapour.rhoMolM3, b.vapour.rhoMolM3) },
+  };
 }
 
 const mixtureCache = new Map<string, MixtureModel>();

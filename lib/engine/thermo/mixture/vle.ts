@@ -172,20 +172,30 @@ export function solveFixedBeta(
     for (let i = 0; i < n; i++) out[i] = v[i] + mix.lnPhi[i] - lnPhiL[i];
   };
   const h = 1e-7;
-  for (let it = 0; it < 40; it++) {
+  // The Jacobian is refreshed only when the residual stops falling fast (a chord method between
+  // refreshes): from a neighbouring solution one Jacobian usually carries it to convergence.
+  const LU = new Float64Array(m * m);
+  let fPrev = Infinity;
+  let fresh = false;
+  for (let it = 0; it < 60; it++) {
     residual(u, F);
     let fMax = 0;
     for (let i = 0; i < m; i++) fMax = Math.max(fMax, Math.abs(F[i]));
     if (!Number.isFinite(fMax)) break;
-    for (let k = 0; k < m; k++) {
-      const save = u[k];
-      u[k] = save + h;
-      residual(u, F2);
-      u[k] = save;
-      for (let i = 0; i < m; i++) J[i * m + k] = (F2[i] - F[i]) / h;
+    if (!fresh || fMax > 0.2 * fPrev) {
+      for (let k = 0; k < m; k++) {
+        const save = u[k];
+        u[k] = save + h;
+        residual(u, F2);
+        u[k] = save;
+        for (let i = 0; i < m; i++) J[i * m + k] = (F2[i] - F[i]) / h;
+      }
+      fresh = true;
     }
+    fPrev = fMax;
+    LU.set(J);
     for (let i = 0; i < m; i++) du[i] = -F[i];
-    if (!solveLinear(J, du, m)) break;
+    if (!solveLinear(LU, du, m)) break;
     // limit the step: ln K by 0.5, the unknown by 10 %
     let scale = 1;
     for (let i = 0; i < n; i++) scale = Math.min(scale, 0.5 / Math.max(Math.abs(du[i]), 1e-300));
@@ -196,10 +206,9 @@ export function solveFixedBeta(
       stepMax = Math.max(stepMax, Math.abs(scale * du[i]));
     }
     if (stepMax < 1e-11 && fMax < 1e-9) {
+      // the last evaluation (both phases, all properties) at the converged point
       residual(u, F);
       if (Math.abs(liquid.z - vapour.z) < 1e-5) break;
-      mix.evaluate(tK, pPa, x, LIQUID_ROOT, false, liquid);
-      mix.evaluate(tK, pPa, y, VAPOUR_ROOT, false, vapour);
       return { tK, pPa, beta, x, y, liquid, vapour };
     }
   }
