@@ -22,6 +22,13 @@
  * - R1234ze(E) with R125, R134a and R1234yf: the file version read has no parameters for these
  *   three pairs; they run on the Lorentz–Berthelot default (all four parameters 1, F = 0), the
  *   model's own fallback. R1234ze(E) is 7 % of R448A and in no other blend here.
+ *
+ * A later version of the same pairs file replaces the HFO pairs by the fits of Bell et al.
+ * (J. Phys. Chem. Ref. Data 2022 and 2023: R32/R1234yf, R32/R1234ze(E), R125/R1234yf,
+ * R1234yf/R134a, R1234yf/R1234ze(E), R134a/R1234ze(E)), each with its own departure function;
+ * those departure functions were not in any version of the departure-function file that could
+ * be read, and reducing parameters fitted together with a departure function are not used
+ * without it, so the earlier published set above is kept.
  */
 import type { ComponentId } from "./component";
 
