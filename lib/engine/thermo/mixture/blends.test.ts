@@ -9,6 +9,8 @@ import { COMPONENTS } from "./components";
 import { blendMeta, BLEND_IDS, createBlend } from "./index";
 import { LIQUID_ROOT, MixtureModel, newPhaseEval, VAPOUR_ROOT } from "./kunz-wagner";
 import { solveFixedBeta } from "./vle";
+import { HelmholtzEos, newAlpha } from "../helmholtz/eos";
+import { LEMMON_2003 } from "./fixtures/lemmon2003";
 
 // Where every number below comes from: fixtures/README.md (published tables and papers, values
 // from memory marked so, and the reference states stored in the public CoolProp fluid files).
@@ -301,6 +303,68 @@ describe.each(BLEND_IDS)("%s on the mixture model", (id) => {
     expect(() => f.statePT(40e5, C)).toThrowError(/pPa/);
     expect(() => f.statePT(5e5, C + 200)).toThrowError(/tK/);
     expect(() => f.statePH(5e5, Number.NaN)).toThrowError(/hJkg/);
+  });
+});
+
+describe.each(["R404A", "R507A"] as const)("%s single-phase states against Lemmon's (2003) pseudo-pure equation", (id) => {
+  // Lemmon (2003), Int. J. Thermophys. 24, 991: a pure-fluid-form equation fitted to the
+  // Lemmon–Jacobsen mixture model at the nominal composition (fixtures/lemmon2003.ts). Its own
+  // representation of that model is closest in the vapour; in the liquid its heat capacity and
+  // speed of sound carry about 1–2 %, so the liquid limits are wider.
+  const f = createBlend(id);
+  const e = new HelmholtzEos(LEMMON_2003[id]);
+  const a = newAlpha();
+  const ref = (P: number, T: number, liquid: boolean) => {
+    let rho = liquid ? 3.2 * e.rhor : P / (e.r * T);
+    for (let i = 0; i < 100; i++) {
+      e.evaluate(rho / e.rhor, e.tr / T, a, true);
+      const step = (rho * e.r * T * (1 + a.dAr) - P) / (e.r * T * (1 + 2 * a.dAr + a.ddAr));
+      rho -= step;
+      if (Math.abs(step) < 1e-12 * rho) break;
+    }
+    e.evaluate(rho / e.rhor, e.tr / T, a);
+    const cvR = -(a.ttA0 + a.ttAr);
+    const num = 1 + a.dAr - a.dtAr;
+    const den = 1 + 2 * a.dAr + a.ddAr;
+    return {
+      rho,
+      h: e.r * T * (1 + a.tA0 + a.tAr + a.dAr),
+      cp: e.r * (cvR + (num * num) / den),
+      w: Math.sqrt(e.r * T * (den + (num * num) / cvR)),
+    };
+  };
+  // enthalpies compared as differences from one vapour state (the reference states differ)
+  const t0 = f.saturationAtP(3e5).tDewK + 10;
+  const h0 = f.statePT(3e5, t0).hJkg;
+  const h0ref = ref(3e5, t0, false).h;
+
+  it("superheated vapour 1–25 bar, 10–80 K superheat: ρ and w within 0.05 %, cp within 0.4 %, Δh within 0.15 kJ/kg", () => {
+    for (const P of [1e5, 3e5, 10e5, 18e5, 25e5]) {
+      for (const dT of [10, 40, 80]) {
+        const T = f.saturationAtP(P).tDewK + dT;
+        const m = f.statePT(P, T);
+        const r = ref(P, T, false);
+        expect(rel(m.densityKgM3, r.rho)).toBeLessThan(5e-4);
+        expect(rel(m.speedOfSoundMs!, r.w)).toBeLessThan(5e-4);
+        expect(rel(m.cpJkgK!, r.cp)).toBeLessThan(4e-3);
+        expect(Math.abs(m.hJkg - h0 - (r.h - h0ref))).toBeLessThan(150);
+      }
+    }
+  });
+
+  it("subcooled liquid: ρ within 0.15 %, liquid-to-vapour Δh within 1 kJ/kg, cp and w within 2.5 %", () => {
+    for (const P of [10e5, 25e5]) {
+      for (const tC of [-40, 0, 30]) {
+        const T = tC + C;
+        if (T > f.saturationAtP(P).tBubbleK - 2) continue;
+        const m = f.statePT(P, T);
+        const r = ref(P, T, true);
+        expect(rel(m.densityKgM3, r.rho)).toBeLessThan(1.5e-3);
+        expect(Math.abs(m.hJkg - h0 - (r.h - h0ref))).toBeLessThan(1000);
+        expect(rel(m.cpJkgK!, r.cp)).toBeLessThan(0.025);
+        expect(rel(m.speedOfSoundMs!, r.w)).toBeLessThan(0.025);
+      }
+    }
   });
 });
 
