@@ -352,6 +352,48 @@ describe.each(["R404A", "R507A"] as const)("%s single-phase states against Lemmo
     }
   });
 
+  it("single-stage cycles −40/+45 … 0/+50 °C (dew and mean): COP within 0.3 %, discharge within 0.2 K", () => {
+    // 5 K superheat, 5 K subcooling, isentropic compression: every state point single-phase,
+    // so the pseudo-pure equation applies at each; the pressures are the blend's own.
+    const sAt = (P: number, T: number) => {
+      ref(P, T, false);
+      return e.r * (a.tA0 + a.tAr - a.a0 - Math.log(ref(P, T, false).rho / e.rhor) - a.ar);
+    };
+    const tAtS = (P: number, s: number, T0: number) => {
+      let T = T0;
+      for (let i = 0; i < 50; i++) {
+        const d = (sAt(P, T) - s) / (ref(P, T, false).cp / T);
+        T -= d;
+        if (Math.abs(d) < 1e-9) break;
+      }
+      return T;
+    };
+    for (const [te, tc] of [
+      [-40, 45],
+      [-35, 40],
+      [-10, 40],
+      [0, 50],
+    ]) {
+      for (const conv of ["dew", "mean"] as const) {
+        const pe = f.saturationAtT(te + C, conv).pDewPa;
+        const pc = f.saturationAtT(tc + C, conv).pDewPa;
+        const T1 = f.saturationAtP(pe).tDewK + 5;
+        const T3 = f.saturationAtP(pc).tBubbleK - 5;
+        const m1 = f.statePT(pe, T1);
+        const m3 = f.statePT(pc, T3);
+        const m2 = f.statePS(pc, m1.sJkgK);
+        const r1 = ref(pe, T1, false).h;
+        const r3 = ref(pc, T3, true).h;
+        const T2 = tAtS(pc, sAt(pe, T1), m2.tK);
+        const r2 = ref(pc, T2, false).h;
+        const copModel = (m1.hJkg - m3.hJkg) / (m2.hJkg - m1.hJkg);
+        const copRef = (r1 - r3) / (r2 - r1);
+        expect(rel(copModel, copRef)).toBeLessThan(0.003);
+        expect(Math.abs(m2.tK - T2)).toBeLessThan(0.2);
+      }
+    }
+  });
+
   it("subcooled liquid: ρ within 0.15 %, liquid-to-vapour Δh within 1 kJ/kg, cp and w within 2.5 %", () => {
     for (const P of [10e5, 25e5]) {
       for (const tC of [-40, 0, 30]) {
