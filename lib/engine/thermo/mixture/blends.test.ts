@@ -306,26 +306,26 @@ describe.each(BLEND_IDS)("%s on the mixture model", (id) => {
   });
 });
 
-/** R410A (R32/R125 50/50 by mass): not a blend offered here, built for this check only. */
-const r410a = () =>
+/** R410A (R32/R125 50/50) and R407C (R32/R125/R134a 23/25/52): not offered here, built for this check only. */
+const testBlend = (id: "R410A" | "R407C") =>
   new HelmholtzBlend({
-    id: "R410A" as FluidId,
-    name: "R410A (test only)",
-    massFractions: { R32: 0.5, R125: 0.5 },
+    id: id as FluidId,
+    name: `${id} (test only)`,
+    massFractions: id === "R410A" ? { R32: 0.5, R125: 0.5 } : { R32: 0.23, R125: 0.25, R134a: 0.52 },
     safetyGroup: "A1",
     zeotropic: true,
-    criticalTempK: 344.494,
-    criticalPressurePa: 4.9012e6,
-    criticalDensityKgM3: 459,
-    pMaxPa: 35e5,
+    criticalTempK: id === "R410A" ? 344.494 : 359.345,
+    criticalPressurePa: id === "R410A" ? 4.9012e6 : 4.6317e6,
+    criticalDensityKgM3: 455,
+    pMaxPa: 32e5,
   });
 
-describe.each(["R404A", "R507A", "R410A"] as const)("%s single-phase states against Lemmon's (2003) pseudo-pure equation", (id) => {
+describe.each(["R404A", "R507A", "R410A", "R407C"] as const)("%s single-phase states against Lemmon's (2003) pseudo-pure equation", (id) => {
   // Lemmon (2003), Int. J. Thermophys. 24, 991: a pure-fluid-form equation fitted to the
   // Lemmon–Jacobsen mixture model at the nominal composition (fixtures/lemmon2003.ts). Its own
   // representation of that model is closest in the vapour; in the liquid its heat capacity and
   // speed of sound carry about 1–2 %, so the liquid limits are wider.
-  const f = id === "R410A" ? r410a() : createBlend(id);
+  const f = id === "R410A" || id === "R407C" ? testBlend(id) : createBlend(id);
   const e = new HelmholtzEos(LEMMON_2003[id]);
   const a = newAlpha();
   const ref = (P: number, T: number, liquid: boolean) => {
