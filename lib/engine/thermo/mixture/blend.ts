@@ -458,7 +458,10 @@ export class HelmholtzBlend implements Fluid {
       f.at(rho, tK, st);
       const tb = t.value(idx(0, S_T));
       const td = t.value(idx(N_BETA - 1, S_T));
-      if (!(st.dpdrho > 0) || (liquid ? tK > tb + 1e-6 : tK < td - 1e-6)) ok = false;
+      // …and on its own branch: a liquid denser than (about) the bubble-point liquid, a vapour
+      // lighter than the dew-point vapour (a metastable root on the other branch fails this)
+      const branchOk = liquid ? rho > 0.9 * rhoSat : rho < 1.1 * rhoSat;
+      if (!(st.dpdrho > 0) || !branchOk || (liquid ? tK > tb + 1e-6 : tK < td - 1e-6)) ok = false;
     }
     this.fastOk = ok;
     if (!ok) tK = this.solveSingleNested(pPa, target, kind, root, tSat, cpSat, dxSat);
