@@ -17,6 +17,8 @@ export const SAFETY_GROUP: Record<FluidId, SafetyGroup> = {
   R290: "A3",
   R1234zeE: "A2L",
   R513A: "A1",
+  R454C: "A2L",
+  R455A: "A2L",
 };
 
 export const CODES_NOTICE =

@@ -4,8 +4,8 @@
  * All states use SI units and the IIR reference state (h = 200 kJ/kg and s = 1 kJ/(kg·K)
  * for saturated liquid at 0 °C; for blends, the bubble-point liquid). Pure fluids run on their
  * reference multiparameter Helmholtz equations of state; the blends (R404A, R507A, R448A,
- * R449A, R513A) on the Peng–Robinson mixture model in ./cubic, where `saturationAtT` takes
- * the dew-point temperature unless told otherwise (see README.md). Each pure fluid's
+ * R449A, R513A, R454C, R455A) on the multi-fluid Helmholtz mixture model in ./mixture, where
+ * `saturationAtT` takes the dew-point temperature unless told otherwise (see README.md). Each pure fluid's
  * coefficients live in its own module and are imported only by `loadFluid`, so a browser
  * bundle carries one fluid at a time; the blends share one module.
  *
@@ -27,7 +27,7 @@ import { FLUID_IDS } from "./schema";
 const PURE_IDS = Object.keys(pureFluidMeta) as PureFluidId[];
 
 
-const BLEND_IDS: readonly FluidId[] = ["R404A", "R507A", "R448A", "R449A", "R513A"];
+const BLEND_IDS: readonly FluidId[] = ["R404A", "R507A", "R448A", "R449A", "R513A", "R454C", "R455A"];
 
 function isPure(id: FluidId): id is PureFluidId {
   return (PURE_IDS as FluidId[]).includes(id);
@@ -44,12 +44,12 @@ const loaders: Record<PureFluidId, () => Promise<{ data: import("./helmholtz/pur
 const loaded = new Map<FluidId, Fluid>();
 const pending = new Map<FluidId, Promise<Fluid>>();
 
-type BlendModule = typeof import("./cubic/index");
+type BlendModule = typeof import("./mixture/index");
 let blendModule: BlendModule | undefined;
 
-/** The blends' Peng–Robinson module (./cubic), imported on first need. */
+/** The blends' mixture-model module (./mixture), imported on first need. */
 async function blends(): Promise<BlendModule> {
-  blendModule ??= await import("./cubic/index");
+  blendModule ??= await import("./mixture/index");
   return blendModule;
 }
 

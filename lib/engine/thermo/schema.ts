@@ -20,6 +20,8 @@ export const FLUID_IDS = [
   "R448A",
   "R449A",
   "R513A",
+  "R454C",
+  "R455A",
 ] as const satisfies readonly FluidId[];
 
 export const fluidIdSchema = z.enum(FLUID_IDS);

@@ -17,7 +17,9 @@ export type FluidId =
   | "R449A"
   | "R290"
   | "R1234zeE"
-  | "R513A";
+  | "R513A"
+  | "R454C"
+  | "R455A";
 
 export type SafetyGroup = "A1" | "A2L" | "A2" | "A3" | "B1" | "B2L" | "B2" | "B3";
 

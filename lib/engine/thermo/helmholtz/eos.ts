@@ -10,12 +10,16 @@
  * n·Δ^b·δ·ψ. Property relations follow Span (2000), "Multiparameter Equations of State", Table 3.3.
  */
 
-/** n·δ^d·τ^t·exp(−δ^l); l = 0 means no exponential. */
+/**
+ * n·δ^d·τ^t·exp(−δ^l)·exp(−τ^m); l = 0 means no δ exponential; `m` (optional, 0 = none) is the
+ * τ exponential of the Lemmon & Jacobsen (2005) form used by R125.
+ */
 export interface PowerTerms {
   n: readonly number[];
   d: readonly number[];
   t: readonly number[];
   l: readonly number[];
+  m?: readonly number[];
 }
 
 /** n·δ^d·τ^t·exp(−η(δ−ε)² − β(τ−γ)²). */
@@ -97,6 +101,8 @@ interface CompiledPower {
   d: Float64Array;
   t: Float64Array;
   l: Int32Array;
+  m: Float64Array;
+  hasM: boolean;
   intD: boolean;
 }
 
@@ -123,6 +129,8 @@ export class HelmholtzEos {
       d: Float64Array.from(p.d),
       t: Float64Array.from(p.t),
       l: Int32Array.from(p.l),
+      m: Float64Array.from(p.m ?? p.n.map(() => 0)),
+      hasM: (p.m ?? []).some((x) => x !== 0),
       intD: p.d.every((x) => Number.isInteger(x)),
     };
     this.maxL = p.l.reduce((m, x) => Math.max(m, x), 0);
@@ -152,7 +160,7 @@ export class HelmholtzEos {
       dl[l] = x;
       el[l] = Math.exp(-x);
     }
-    const { n, d, t, l } = this.pw;
+    const { n, d, t, l, m, hasM } = this.pw;
     for (let i = 0; i < n.length; i++) {
       const li = l[i];
       const di = d[i];
@@ -168,12 +176,26 @@ export class HelmholtzEos {
         a = di - dL;
         b = -di - (li - 1) * dL;
       }
-      ar += f;
-      dAr += f * a;
-      ddAr += f * (a * a + b);
-      tAr += f * ti;
-      ttAr += f * ti * (ti - 1);
-      dtAr += f * ti * a;
+      const mi = hasM ? m[i] : 0;
+      if (mi === 0) {
+        ar += f;
+        dAr += f * a;
+        ddAr += f * (a * a + b);
+        tAr += f * ti;
+        ttAr += f * ti * (ti - 1);
+        dtAr += f * ti * a;
+      } else {
+        // exp(−τ^m): τ∂/∂τ gives c = t − m·τ^m, τ²∂²/∂τ² gives c² − c − m²·τ^m
+        const tm = Math.exp(mi * lnT);
+        f *= Math.exp(-tm);
+        const c = ti - mi * tm;
+        ar += f;
+        dAr += f * a;
+        ddAr += f * (a * a + b);
+        tAr += f * c;
+        ttAr += f * (c * c - c - mi * mi * tm);
+        dtAr += f * c * a;
+      }
     }
     const g = this.gs;
     if (g) {
@@ -212,7 +234,12 @@ export class HelmholtzEos {
     out.ttAr = ttAr;
     out.dtAr = dtAr;
     if (residualOnly) return out;
-    // ideal-gas part
+    return this.evaluateIdeal(tau, out);
+  }
+
+  /** Fills the ideal-gas part of `out` (α° without ln δ and its τ-derivatives) at τ. */
+  evaluateIdeal(tau: number, out: AlphaDerivs): AlphaDerivs {
+    const lnT = Math.log(tau);
     const id = this.ideal;
     let a0 = id.a1 + id.a2 * tau + id.logTau * lnT;
     let tA0 = id.a2 * tau + id.logTau;

@@ -1,7 +1,7 @@
-import { LIQUID_ROOT, newPhaseEval, PengRobinsonMixture, VAPOUR_ROOT, type PhaseEval } from "./peng-robinson";
+import { LIQUID_ROOT, newPhaseEval, MixtureModel, VAPOUR_ROOT, type PhaseEval } from "./kunz-wagner";
 
 /**
- * Vapour–liquid equilibrium of a PR mixture at fixed overall composition z.
+ * Vapour–liquid equilibrium of the multi-fluid mixture model at fixed overall composition z.
  *
  * Equilibrium is equal fugacity of every component in both phases, f_i^L = f_i^V, written with
  * K-values K_i = y_i/x_i = φ_i^L/φ_i^V and the Rachford–Rice material balance
@@ -32,7 +32,7 @@ export class VleConvergenceError extends Error {
 
 const MAX_ITER = 500;
 
-function wilsonK(mix: PengRobinsonMixture, tK: number, pPa: number, i: number): number {
+function wilsonK(mix: MixtureModel, tK: number, pPa: number, i: number): number {
   const c = mix.components[i];
   return (c.pcPa / pPa) * Math.exp(5.373 * (1 + c.omega) * (1 - c.tcK / tK));
 }
@@ -44,7 +44,7 @@ function rrSum(z: ArrayLike<number>, K: Float64Array, beta: number): number {
 }
 
 /** Initial (T, P) from Wilson's K-value correlation (Wilson, 1968) when no guess is given. */
-function wilsonStart(mix: PengRobinsonMixture, z: ArrayLike<number>, spec: "T" | "P", value: number, beta: number, K: Float64Array): { tK: number; pPa: number } {
+function wilsonStart(mix: MixtureModel, z: ArrayLike<number>, spec: "T" | "P", value: number, beta: number, K: Float64Array): { tK: number; pPa: number } {
   const n = mix.n;
   if (spec === "T") {
     // Σ z K = 1 at the bubble point and Σ z/K = 1 at the dew point have closed forms in P.
@@ -81,10 +81,17 @@ function wilsonStart(mix: PengRobinsonMixture, z: ArrayLike<number>, spec: "T" |
 /**
  * Two-phase state at a given vapour mole fraction β and a given T (unknown P) or P (unknown T).
  * β = 0 gives the bubble point, β = 1 the dew point. `guess` (a nearby solution) speeds it up
- * and keeps it on the right branch; without one, Wilson K-values start it.
+ * and keeps it on the right branch; without one, Wilson K-values start it and a few
+ * successive-substitution steps bring it near the solution.
+ *
+ * The solve is Newton's method on u = (ln K_1 … ln K_n, ln T or ln P) for the equations
+ * ln K_i + ln φ_i^V(y) − ln φ_i^L(x) = 0 (equal fugacities) and the Rachford–Rice balance
+ * Σ z_i (K_i − 1)/(1 + β(K_i − 1)) = 0, with x_i = z_i/(1 + β(K_i − 1)), y_i = K_i x_i. The
+ * Jacobian is taken by forward differences of the analytic ln φ (n + 1 extra phase pairs per
+ * step); from a neighbouring solution it converges in three to five steps.
  */
 export function solveFixedBeta(
-  mix: PengRobinsonMixture,
+  mix: MixtureModel,
   z: ArrayLike<number>,
   spec: "T" | "P",
   value: number,
@@ -107,58 +114,143 @@ export function solveFixedBeta(
   }
   const liquid = newPhaseEval();
   const vapour = newPhaseEval();
-  const setCompositions = () => phaseCompositions(z, K, beta, x, y);
-  setCompositions();
-  for (let it = 0; it < MAX_ITER; it++) {
+  if (guess) {
+    // the neighbouring solution's densities seed the density solves
+    liquid.rhoMolM3 = guess.liquid.rhoMolM3;
+    liquid.root = LIQUID_ROOT;
+    vapour.rhoMolM3 = guess.vapour.rhoMolM3;
+    vapour.root = VAPOUR_ROOT;
+  } else {
+    // successive substitution with a quasi-Newton step on the unknown, to a loose tolerance
+    for (let it = 0; it < 60; it++) {
+      phaseCompositions(z, K, beta, x, y);
+      mix.evaluate(tK, pPa, x, LIQUID_ROOT, true, liquid);
+      lnPhiL.set(mix.lnPhi);
+      mix.evaluate(tK, pPa, y, VAPOUR_ROOT, true, vapour);
+      let maxDlnK = 0;
+      for (let i = 0; i < n; i++) {
+        const kNew = Math.exp(lnPhiL[i] - mix.lnPhi[i]);
+        maxDlnK = Math.max(maxDlnK, Math.abs(Math.log(kNew / K[i])));
+        K[i] = kNew;
+      }
+      const g = rrSum(z, K, beta);
+      let dg = 0;
+      if (spec === "T") {
+        for (let i = 0; i < n; i++) {
+          const d = 1 + beta * (K[i] - 1);
+          dg -= (z[i] * K[i]) / (d * d);
+        }
+        pPa *= Math.exp(Math.max(-0.5, Math.min(0.5, -g / dg)));
+      } else {
+        for (let i = 0; i < n; i++) {
+          const c = mix.components[i];
+          const d = 1 + beta * (K[i] - 1);
+          dg += (z[i] * K[i] * 5.373 * (1 + c.omega) * c.tcK) / (tK * tK * d * d);
+        }
+        tK += Math.max(-20, Math.min(20, -g / dg));
+      }
+      if (Math.abs(g) < 1e-5 && maxDlnK < 1e-5) break;
+    }
+  }
+  const m = n + 1;
+  const u = new Float64Array(m);
+  for (let i = 0; i < n; i++) u[i] = Math.log(K[i]);
+  u[n] = Math.log(spec === "P" ? tK : pPa);
+  const F = new Float64Array(m);
+  const F2 = new Float64Array(m);
+  const J = new Float64Array(m * m);
+  const du = new Float64Array(m);
+  const residual = (v: Float64Array, out: Float64Array): void => {
+    for (let i = 0; i < n; i++) K[i] = Math.exp(v[i]);
+    if (spec === "P") tK = Math.exp(v[n]);
+    else pPa = Math.exp(v[n]);
+    out[n] = rrSum(z, K, beta);
+    phaseCompositions(z, K, beta, x, y);
     mix.evaluate(tK, pPa, x, LIQUID_ROOT, true, liquid);
     lnPhiL.set(mix.lnPhi);
     mix.evaluate(tK, pPa, y, VAPOUR_ROOT, true, vapour);
-    let maxDlnK = 0;
-    for (let i = 0; i < n; i++) {
-      const kNew = Math.exp(lnPhiL[i] - mix.lnPhi[i]);
-      maxDlnK = Math.max(maxDlnK, Math.abs(Math.log(kNew / K[i])));
-      K[i] = kNew;
-    }
-    const g = rrSum(z, K, beta);
-    // Quasi-Newton step on the unknown: ln K_i falls as −ln P and rises with T roughly as the
-    // component's vapour-pressure slope (Wilson form), which is all the step needs.
-    let dg = 0;
-    let step: number;
-    if (spec === "T") {
-      for (let i = 0; i < n; i++) {
-        const d = 1 + beta * (K[i] - 1);
-        dg -= (z[i] * K[i]) / (d * d);
+    for (let i = 0; i < n; i++) out[i] = v[i] + mix.lnPhi[i] - lnPhiL[i];
+  };
+  const h = 1e-7;
+  // The Jacobian is refreshed only when the residual stops falling fast (a chord method between
+  // refreshes): from a neighbouring solution one Jacobian usually carries it to convergence.
+  const LU = new Float64Array(m * m);
+  let fPrev = Infinity;
+  let fresh = false;
+  for (let it = 0; it < 60; it++) {
+    residual(u, F);
+    let fMax = 0;
+    for (let i = 0; i < m; i++) fMax = Math.max(fMax, Math.abs(F[i]));
+    if (!Number.isFinite(fMax)) break;
+    if (!fresh || fMax > 0.2 * fPrev) {
+      for (let k = 0; k < m; k++) {
+        const save = u[k];
+        u[k] = save + h;
+        residual(u, F2);
+        u[k] = save;
+        for (let i = 0; i < m; i++) J[i * m + k] = (F2[i] - F[i]) / h;
       }
-      step = -g / dg;
-      step = Math.max(-0.5, Math.min(0.5, step));
-      pPa *= Math.exp(step);
-    } else {
-      for (let i = 0; i < n; i++) {
-        const c = mix.components[i];
-        const d = 1 + beta * (K[i] - 1);
-        dg += (z[i] * K[i] * 5.373 * (1 + c.omega) * c.tcK) / (tK * tK * d * d);
-      }
-      step = -g / dg;
-      step = Math.max(-20, Math.min(20, step));
-      tK += step;
-      step /= tK;
+      fresh = true;
     }
-    setCompositions();
-    if (Math.abs(g) < 1e-13 && Math.abs(step) < 1e-12 && maxDlnK < 1e-12) {
-      if (Math.abs(liquid.z - vapour.z) < 1e-4) break;
-      mix.evaluate(tK, pPa, x, LIQUID_ROOT, false, liquid);
-      mix.evaluate(tK, pPa, y, VAPOUR_ROOT, false, vapour);
+    fPrev = fMax;
+    LU.set(J);
+    for (let i = 0; i < m; i++) du[i] = -F[i];
+    if (!solveLinear(LU, du, m)) break;
+    // limit the step: ln K by 0.5, the unknown by 10 %
+    let scale = 1;
+    for (let i = 0; i < n; i++) scale = Math.min(scale, 0.5 / Math.max(Math.abs(du[i]), 1e-300));
+    scale = Math.min(scale, 0.1 / Math.max(Math.abs(du[n]), 1e-300));
+    let stepMax = 0;
+    for (let i = 0; i < m; i++) {
+      u[i] += scale * du[i];
+      stepMax = Math.max(stepMax, Math.abs(scale * du[i]));
+    }
+    if (stepMax < 1e-11 && fMax < 1e-9) {
+      // the last evaluation (both phases, all properties) at the converged point
+      residual(u, F);
+      if (Math.abs(liquid.z - vapour.z) < 1e-5) break;
       return { tK, pPa, beta, x, y, liquid, vapour };
     }
   }
   throw new VleConvergenceError(`VLE at ${spec} = ${value}, beta = ${beta} did not converge`);
 }
 
+/** Solves A·x = b in place (b becomes x) by Gaussian elimination with partial pivoting. */
+function solveLinear(A: Float64Array, b: Float64Array, m: number): boolean {
+  for (let c = 0; c < m; c++) {
+    let piv = c;
+    for (let r = c + 1; r < m; r++) if (Math.abs(A[r * m + c]) > Math.abs(A[piv * m + c])) piv = r;
+    if (!(Math.abs(A[piv * m + c]) > 0)) return false;
+    if (piv !== c) {
+      for (let k = 0; k < m; k++) {
+        const t = A[c * m + k];
+        A[c * m + k] = A[piv * m + k];
+        A[piv * m + k] = t;
+      }
+      const t = b[c];
+      b[c] = b[piv];
+      b[piv] = t;
+    }
+    for (let r = c + 1; r < m; r++) {
+      const f = A[r * m + c] / A[c * m + c];
+      if (f === 0) continue;
+      for (let k = c; k < m; k++) A[r * m + k] -= f * A[c * m + k];
+      b[r] -= f * b[c];
+    }
+  }
+  for (let r = m - 1; r >= 0; r--) {
+    let sum = b[r];
+    for (let k = r + 1; k < m; k++) sum -= A[r * m + k] * b[k];
+    b[r] = sum / A[r * m + r];
+  }
+  return true;
+}
+
 /**
  * Isothermal flash at (P, T) inside the two-phase region: Rachford–Rice for β with successive
  * substitution on K. `guess` supplies starting K-values (e.g. from the bubble/dew points).
  */
-export function flashPT(mix: PengRobinsonMixture, z: ArrayLike<number>, pPa: number, tK: number, guess: TwoPhaseSolution): TwoPhaseSolution {
+export function flashPT(mix: MixtureModel, z: ArrayLike<number>, pPa: number, tK: number, guess: TwoPhaseSolution): TwoPhaseSolution {
   const n = mix.n;
   const K = new Float64Array(n);
   const x = new Float64Array(n);

@@ -1,6 +1,6 @@
 /**
- * Refrigerant blends on a Peng–Robinson mixture model: R404A, R507A, R448A, R449A, R513A at
- * their ASHRAE 34 / ISO 817 nominal mass fractions. The registry (../index.ts) imports this
+ * Refrigerant blends on the multi-fluid Helmholtz mixture model (Kunz–Wagner form): R404A,
+ * R507A, R448A, R449A, R513A, R454C, R455A at their ASHRAE 34 / ISO 817 nominal mass fractions. The registry (../index.ts) imports this
  * module lazily; see README.md of the thermo module for the model and its measured accuracy.
  *
  * All states: SI units, IIR reference state (h = 200 kJ/kg, s = 1 kJ/(kg·K) for the saturated
@@ -8,7 +8,7 @@
  * told otherwise ("bubble" or "mean").
  */
 import type { Fluid, FluidId, FluidMeta } from "../types";
-import { blendMetaOf, getCubicBlend } from "./blend";
+import { blendMetaOf, getBlend } from "./blend";
 import { BLEND_DEFS, type BlendId } from "./blend-defs";
 
 export const BLEND_IDS = Object.keys(BLEND_DEFS) as BlendId[];
@@ -23,7 +23,7 @@ function isBlend(id: FluidId): id is BlendId {
  */
 export function createBlend(id: FluidId): Fluid {
   if (!isBlend(id)) throw new Error(`"${id}" is not a blend; blends: ${BLEND_IDS.join(", ")}`);
-  return getCubicBlend(id);
+  return getBlend(id);
 }
 
 /** Metadata of every blend (cheap: no tables are built for it). */

@@ -8,9 +8,10 @@ import {
   type TempConvention,
   type ValidityRange,
 } from "../types";
-import { BLEND_DEFS, GWP_AR4, kij, type BlendDef, type BlendId } from "./blend-defs";
-import { COMPONENTS, type ComponentId } from "./components";
-import { LIQUID_ROOT, newPhaseEval, PengRobinsonMixture, VAPOUR_ROOT, type PhaseEval } from "./peng-robinson";
+import { BLEND_DEFS, GWP_AR4, type BlendDef, type BlendId } from "./blend-defs";
+import type { ComponentId } from "./component";
+import { COMPONENTS } from "./components";
+import { FixedMixture, LIQUID_ROOT, MixtureModel, newFixedState, VAPOUR_ROOT, type FixedState, type PhaseEval } from "./kunz-wagner";
 import { UniformSplines } from "./spline";
 import { solveFixedBeta, twoPhaseMass, type TwoPhaseSolution } from "./vle";
 
@@ -26,7 +27,7 @@ const BETA_NODES = Array.from({ length: N_BETA }, (_, j) => 0.5 * (1 - Math.cos(
 // Barycentric weights of Chebyshev–Lobatto nodes: (−1)^j, halved at the ends (Berrut & Trefethen, SIAM Rev. 46, 2004).
 const BARY_W = BETA_NODES.map((_, j) => (j % 2 === 0 ? 1 : -1) * (j === 0 || j === N_BETA - 1 ? 0.5 : 1));
 
-// Series layout in the spline set: per β node j, T, h, s, v, q; then cp of both boundaries and w of the dew-point vapour.
+// Series layout in the spline set: per β node j, T, h, s, v, q; then cp of both boundaries, w of the dew-point vapour and of the bubble-point liquid.
 const S_T = 0;
 const S_H = 1;
 const S_S = 2;
@@ -36,6 +37,7 @@ const PER_BETA = 5;
 const S_CPL = N_BETA * PER_BETA;
 const S_CPV = S_CPL + 1;
 const S_WV = S_CPL + 2;
+const S_WL = S_CPL + 3;
 const idx = (j: number, q: number) => j * PER_BETA + q;
 
 /** Mass-based single-phase properties of the blend at its overall composition. */
@@ -44,12 +46,11 @@ interface MassProps {
   sJkgK: number;
   densityKgM3: number;
   cpJkgK: number;
-  /** Vapour only: PR's liquid speed of sound is about 20 % low for these fluids, so it is not given. */
-  speedOfSoundMs?: number;
+  speedOfSoundMs: number;
 }
 
 /**
- * One refrigerant blend on the Peng–Robinson model (see README.md of the thermo module).
+ * One refrigerant blend on the multi-fluid Helmholtz mixture model (see README.md of the thermo module).
  *
  * Saturation, two-phase states and the phase boundaries come from a table built once, when the
  * blend is created: at 121 pressures (uniform in ln P, from the dew pressure at −60 °C to
@@ -61,18 +62,24 @@ interface MassProps {
  * Saturation states are at one pressure: `pBubblePa === pDewPa`, the liquid is the bubble-point
  * liquid and the vapour the dew-point vapour at that pressure, and `glideK = tDew − tBubble`.
  */
-export class CubicBlend implements Fluid {
+export class HelmholtzBlend implements Fluid {
   readonly meta: FluidMeta;
   readonly range: ValidityRange;
   /** Lowest pressure served, Pa (dew pressure at −60 °C, less 2 %). */
   readonly pMinPa: number;
-  readonly mix: PengRobinsonMixture;
+  readonly mix: MixtureModel;
   readonly z: Float64Array;
   private readonly molarMass: number;
   private hOffset = 0;
   private sOffset = 0;
   private readonly table: UniformSplines;
-  private readonly ev: PhaseEval = newPhaseEval();
+  /** The mixture at the overall composition, compiled for single-phase states. */
+  readonly fixedMix: FixedMixture;
+  private readonly fs: FixedState = newFixedState();
+  /** Last single-phase density per branch (mol/m³), seeding the next solve. */
+  private lastRho = [0, 0];
+  /** Whether the last `solveSingle` converged on its fast path (then `fs` is that state). */
+  private fastOk = false;
   // Scratch for the β-direction values at the located pressure.
   private readonly bh = new Float64Array(N_BETA);
   private readonly bs = new Float64Array(N_BETA);
@@ -85,6 +92,7 @@ export class CubicBlend implements Fluid {
     this.mix = mix;
     this.z = z;
     this.molarMass = mix.molarMass(z);
+    this.fixedMix = mix.fixed(z);
 
     // IIR reference: h = 200 kJ/kg, s = 1 kJ/(kg·K) for the bubble-point liquid at 0 °C.
     const ref = solveFixedBeta(mix, z, "T", 273.15, 0);
@@ -101,13 +109,15 @@ export class CubicBlend implements Fluid {
   private buildTable(): UniformSplines {
     const u0 = Math.log(this.pMinPa);
     const du = (Math.log(this.range.pMaxPa) - u0) / (N_P - 1);
-    const series = Array.from({ length: S_WV + 1 }, () => new Float64Array(N_P));
+    const series = Array.from({ length: S_WL + 1 }, () => new Float64Array(N_P));
     let prev: TwoPhaseSolution[] = [];
+    let prev2: TwoPhaseSolution[] = [];
     for (let i = 0; i < N_P; i++) {
       const p = Math.exp(u0 + i * du);
       const sols: TwoPhaseSolution[] = [];
       for (let j = 0; j < N_BETA; j++) {
-        const guess = prev[j] ?? sols[j - 1];
+        // linear extrapolation from the two previous pressures (ln K, T, densities)
+        const guess = prev[j] && prev2[j] ? extrapolate(prev[j], prev2[j]) : (prev[j] ?? sols[j - 1]);
         const sol = solveFixedBeta(this.mix, this.z, "P", p, BETA_NODES[j], guess);
         sols.push(sol);
         const m = twoPhaseMass(sol);
@@ -117,34 +127,47 @@ export class CubicBlend implements Fluid {
         series[idx(j, S_V)][i] = m.vM3kg;
         series[idx(j, S_Q)][i] = j === 0 ? 0 : j === N_BETA - 1 ? 1 : m.quality;
       }
-      const liq = this.phaseMass(sols[0].liquid, LIQUID_ROOT);
-      const vap = this.phaseMass(sols[N_BETA - 1].vapour, VAPOUR_ROOT);
+      const liq = this.phaseMass(sols[0].liquid);
+      const vap = this.phaseMass(sols[N_BETA - 1].vapour);
       series[S_CPL][i] = liq.cpJkgK;
       series[S_CPV][i] = vap.cpJkgK;
-      series[S_WV][i] = vap.speedOfSoundMs ?? 0;
+      series[S_WV][i] = vap.speedOfSoundMs;
+      series[S_WL][i] = liq.speedOfSoundMs;
+      prev2 = prev;
       prev = sols;
     }
     return new UniformSplines(u0, du, series);
   }
 
   /** Mass-based properties of one evaluated phase (composition = that phase's own). */
-  private phaseMass(e: PhaseEval, root: 0 | 1): MassProps {
+  private phaseMass(e: PhaseEval): MassProps {
     const m = e.molarMassKgMol;
-    const cp = e.cpJmolK;
-    const out: MassProps = {
+    return {
       hJkg: e.hJmol / m + this.hOffset,
       sJkgK: e.sJmolK / m + this.sOffset,
       densityKgM3: m / e.vM3Mol,
-      cpJkgK: cp / m,
+      cpJkgK: e.cpJmolK / m,
+      speedOfSoundMs: e.speedOfSoundMs,
     };
-    // w² = −(v²/M)·(cp/cv)·(∂P/∂v)_T
-    if (root === VAPOUR_ROOT) out.speedOfSoundMs = Math.sqrt((-(e.vM3Mol * e.vM3Mol) / m) * (cp / e.cvJmolK) * e.dPdvT);
-    return out;
   }
 
   private singlePhase(tK: number, pPa: number, root: 0 | 1): MassProps {
-    this.mix.evaluate(tK, pPa, this.z, root, false, this.ev);
-    return this.phaseMass(this.ev, root);
+    const f = this.fixedMix;
+    const rho = f.density(tK, pPa, root, this.lastRho[root]);
+    this.lastRho[root] = rho;
+    return this.fixedMass(f.at(rho, tK, this.fs));
+  }
+
+  /** Mass-based properties of a state of the overall composition. */
+  private fixedMass(st: FixedState): MassProps {
+    const m = this.molarMass;
+    return {
+      hJkg: st.h / m + this.hOffset,
+      sJkgK: st.s / m + this.sOffset,
+      densityKgM3: st.rho * m,
+      cpJkgK: st.cp / m,
+      speedOfSoundMs: st.w,
+    };
   }
 
   private checkP(pPa: number): void {
@@ -180,6 +203,7 @@ export class CubicBlend implements Fluid {
       hJkg: t.value(idx(0, S_H)),
       sJkgK: t.value(idx(0, S_S)),
       cpJkgK: t.value(S_CPL),
+      speedOfSoundMs: t.value(S_WL),
     };
     const vapour: PhaseProps = {
       tK: td,
@@ -374,22 +398,74 @@ export class CubicBlend implements Fluid {
     }
     const liquid = target < xb;
     const root = liquid ? LIQUID_ROOT : VAPOUR_ROOT;
-    // Start from the saturated phase, one cp-step away from it.
-    const tSat = liquid ? this.table.value(idx(0, S_T)) : this.table.value(idx(N_BETA - 1, S_T));
-    const cpSat = liquid ? this.table.value(S_CPL) : this.table.value(S_CPV);
+    const tK = this.solveSingle(pPa, target, kind, root, xb, xd, field);
+    // on the fast path `this.fs` holds the converged state at exactly this temperature
+    if (this.fs.tK === tK && this.fastOk) {
+      return { phase: liquid ? "liquid" : "vapour", tK, pPa, ...this.fixedMass(this.fs) };
+    }
+    return this.single(pPa, tK, root);
+  }
+
+  /**
+   * Temperature of the single-phase state at (P, h) or (P, s): Newton's method on the pair
+   * p(ρ, T) = P, y(ρ, T) = target in (ρ, T) together, one evaluation of the equation per step
+   * (Span 2000, Table 3.3 derivatives), started one cp-step from the saturated phase of the
+   * table; a step that leaves the phase's branch ((∂p/∂ρ)_T ≤ 0) or the range is halved.
+   */
+  private solveSingle(pPa: number, target: number, kind: "h" | "s", root: 0 | 1, xb: number, xd: number, field: string): number {
+    const liquid = root === LIQUID_ROOT;
+    const f = this.fixedMix;
+    const m = this.molarMass;
+    const t = this.table;
+    const tSat = liquid ? t.value(idx(0, S_T)) : t.value(idx(N_BETA - 1, S_T));
+    const cpSat = liquid ? t.value(S_CPL) : t.value(S_CPV);
+    const rhoSat = (liquid ? 1 / t.value(idx(0, S_V)) : 1 / t.value(idx(N_BETA - 1, S_V))) / m;
     const dxSat = target - (liquid ? xb : xd);
     let tK = kind === "h" ? tSat + dxSat / cpSat : tSat * Math.exp(dxSat / cpSat);
-    let m: MassProps | undefined;
-    for (let it = 0; it < 50; it++) {
-      tK = Math.min(T_MAX_K + 60, Math.max(T_MIN_K - 30, tK));
-      m = this.singlePhase(tK, pPa, root);
-      const x = kind === "h" ? m.hJkg : m.sJkgK;
-      const dx = kind === "h" ? m.cpJkgK : m.cpJkgK / tK;
-      let step = (x - target) / dx;
-      step = Math.max(-40, Math.min(40, step));
-      tK -= step;
-      if (Math.abs(step) < 1e-9) break;
+    tK = Math.min(T_MAX_K + 60, Math.max(T_MIN_K - 30, tK));
+    // molar target in the equation's own reference
+    const yTarget = ((kind === "h" ? target - this.hOffset : target - this.sOffset) * m);
+    // density start: the saturated phase's, scaled as an ideal gas for vapour (same pressure)
+    let rho = liquid ? rhoSat : (rhoSat * tSat) / tK;
+    const st = this.fs;
+    let ok = false;
+    for (let it = 0; it < 60; it++) {
+      f.at(rho, tK, st);
+      const F1 = st.p - pPa;
+      const y = kind === "h" ? st.h : st.s;
+      const F2 = y - yTarget;
+      const yr = kind === "h" ? st.dhdrho : st.dsdrho;
+      const yt = kind === "h" ? st.dhdT : st.dsdT;
+      const det = st.dpdrho * yt - st.dpdT * yr;
+      let dRho = -(F1 * yt - F2 * st.dpdT) / det;
+      let dT = -(st.dpdrho * F2 - yr * F1) / det;
+      if (!Number.isFinite(dRho) || !Number.isFinite(dT) || !(st.dpdrho > 0)) break;
+      // keep the step modest: 30 % in density, 40 K in temperature
+      let g = 1;
+      if (Math.abs(dRho) > 0.3 * rho) g = Math.min(g, (0.3 * rho) / Math.abs(dRho));
+      if (Math.abs(dT) > 40) g = Math.min(g, 40 / Math.abs(dT));
+      dRho *= g;
+      dT *= g;
+      rho += dRho;
+      tK += dT;
+      if (Math.abs(dT) < 1e-9 * tK && Math.abs(dRho) < 1e-11 * rho && Math.abs(F1) < 1e-7 * pPa) {
+        ok = true;
+        break;
+      }
     }
+    if (ok) {
+      // confirm the branch: a converged (ρ, T) must be mechanically stable and on the asked side
+      f.at(rho, tK, st);
+      const tb = t.value(idx(0, S_T));
+      const td = t.value(idx(N_BETA - 1, S_T));
+      // …and on its own branch: a liquid denser than (about) the bubble-point liquid, a vapour
+      // lighter than the dew-point vapour (a metastable root on the other branch fails this)
+      const branchOk = liquid ? rho > 0.9 * rhoSat : rho < 1.1 * rhoSat;
+      if (!(st.dpdrho > 0) || !branchOk || (liquid ? tK > tb + 1e-6 : tK < td - 1e-6)) ok = false;
+    }
+    this.fastOk = ok;
+    if (!ok) tK = this.solveSingleNested(pPa, target, kind, root, tSat, cpSat, dxSat);
+    else this.lastRho[root] = rho;
     // A state exactly at a limit may converge a rounding error beyond it.
     if (tK > T_MIN_K - 1e-7 && tK < T_MIN_K) tK = T_MIN_K;
     if (tK < T_MAX_K + 1e-7 && tK > T_MAX_K) tK = T_MAX_K;
@@ -404,7 +480,23 @@ export class CubicBlend implements Fluid {
         liquid ? { min: xLimit, unit } : { max: xLimit, unit },
       );
     }
-    return this.single(pPa, tK, root);
+    return tK;
+  }
+
+  /** Fallback: Newton in T along the isobar, a density solve per step (dh/dT = cp, ds/dT = cp/T). */
+  private solveSingleNested(pPa: number, target: number, kind: "h" | "s", root: 0 | 1, tSat: number, cpSat: number, dxSat: number): number {
+    let tK = kind === "h" ? tSat + dxSat / cpSat : tSat * Math.exp(dxSat / cpSat);
+    for (let it = 0; it < 50; it++) {
+      tK = Math.min(T_MAX_K + 60, Math.max(T_MIN_K - 30, tK));
+      const mp = this.singlePhase(tK, pPa, root);
+      const x = kind === "h" ? mp.hJkg : mp.sJkgK;
+      const dx = kind === "h" ? mp.cpJkgK : mp.cpJkgK / tK;
+      let step = (x - target) / dx;
+      step = Math.max(-40, Math.min(40, step));
+      tK -= step;
+      if (Math.abs(step) < 1e-9) break;
+    }
+    return tK;
   }
 
   /** Full VLE solve (no table) of the two-phase state at P and vapour mole fraction β, mass based. */
@@ -417,22 +509,49 @@ export class CubicBlend implements Fluid {
   /** Full VLE solve (no table) of the bubble (β = 0) or dew (β = 1) point at temperature tK. */
   exactSaturationAtT(tK: number, beta: 0 | 1): { pPa: number; densityKgM3: number; hJkg: number; sJkgK: number } {
     const sol = solveFixedBeta(this.mix, this.z, "T", tK, beta);
-    const m = beta === 0 ? this.phaseMass(sol.liquid, LIQUID_ROOT) : this.phaseMass(sol.vapour, VAPOUR_ROOT);
+    const m = beta === 0 ? this.phaseMass(sol.liquid) : this.phaseMass(sol.vapour);
     return { pPa: sol.pPa, densityKgM3: m.densityKgM3, hJkg: m.hJkg, sJkgK: m.sJkgK };
   }
 }
 
-function buildMixture(def: BlendDef): { mix: PengRobinsonMixture; z: Float64Array; ids: ComponentId[]; w: number[] } {
+/** A starting guess two grid steps on: 2·a − b in T, ln K and the densities. */
+function extrapolate(a: TwoPhaseSolution, b: TwoPhaseSolution): TwoPhaseSolution {
+  const n = a.x.length;
+  const x = new Float64Array(n);
+  const y = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    x[i] = a.x[i];
+    // K = y/x extrapolated in ln K
+    y[i] = a.x[i] * Math.exp(2 * Math.log(a.y[i] / a.x[i]) - Math.log(b.y[i] / b.x[i]));
+  }
+  const rho = (ra: number, rb: number) => (2 * ra - rb > 0 ? 2 * ra - rb : ra);
+  return {
+    tK: 2 * a.tK - b.tK,
+    pPa: a.pPa,
+    beta: a.beta,
+    x,
+    y,
+    liquid: { ...a.liquid, rhoMolM3: rho(a.liquid.rhoMolM3, b.liquid.rhoMolM3) },
+    vapour: { ...a.vapour, rhoMolM3: rho(a.vapour.rhoMolM3, b.vapour.rhoMolM3) },
+  };
+}
+
+const mixtureCache = new Map<string, MixtureModel>();
+
+function buildMixture(def: BlendDef): { mix: MixtureModel; z: Float64Array; ids: ComponentId[]; w: number[] } {
   const ids = Object.keys(def.massFractions) as ComponentId[];
   const comps = ids.map((i) => COMPONENTS[i]);
   const w = ids.map((i) => def.massFractions[i] ?? 0);
-  const moles = w.map((wi, k) => wi / comps[k].molarMassKgMol);
+  const moles = w.map((wi, k) => wi / comps[k].eos.molarMassKgMol);
   const total = moles.reduce((a, b) => a + b, 0);
   const z = Float64Array.from(moles, (m) => m / total);
-  const override = (a: ComponentId, b: ComponentId) => def.kijOverride?.[`${a}/${b}`] ?? def.kijOverride?.[`${b}/${a}`];
-  const k0 = ids.map((a) => ids.map((b) => (a === b ? 0 : (override(a, b) ?? kij(a, b)[0]))));
-  const k1 = ids.map((a) => ids.map((b) => (a === b ? 0 : kij(a, b)[1])));
-  return { mix: new PengRobinsonMixture(comps, k0, k1), z, ids, w };
+  const key = ids.join("/");
+  let mix = mixtureCache.get(key);
+  if (!mix) {
+    mix = new MixtureModel(comps);
+    mixtureCache.set(key, mix);
+  }
+  return { mix, z, ids, w };
 }
 
 const metaCache = new Map<BlendId, FluidMeta>();
@@ -462,19 +581,19 @@ export function blendMetaOf(def: BlendDef): FluidMeta {
     odp: 0,
     composition: Object.fromEntries(ids.map((c, k) => [c, w[k]])),
     zeotropic: def.zeotropic,
-    model: "Peng–Robinson, Mathias–Copeman alpha, Péneloux shift, vdW one-fluid mixing (cubic)",
+    model: "Multi-fluid Helmholtz mixture model (Kunz–Wagner form; reference equations of the components, published binary parameters)",
   };
   metaCache.set(id, meta);
   return meta;
 }
 
-const cache = new Map<BlendId, CubicBlend>();
+const cache = new Map<BlendId, HelmholtzBlend>();
 
 /** The blend model for an id, built (and its tables computed) on first use, then cached. */
-export function getCubicBlend(id: BlendId): CubicBlend {
+export function getBlend(id: BlendId): HelmholtzBlend {
   let b = cache.get(id);
   if (!b) {
-    b = new CubicBlend(BLEND_DEFS[id]);
+    b = new HelmholtzBlend(BLEND_DEFS[id]);
     cache.set(id, b);
   }
   return b;
