@@ -90,7 +90,7 @@ export const surfaceSchema = z
     label: z.string().optional(),
     kind: z.enum(["wall", "roof", "ceiling", "floor"]),
     /** Compass direction a wall faces (solar allowance); roofs are horizontal. */
-    orientation: z.enum(["N", "E", "S", "W"]).optional(),
+    orientation: z.enum(["N", "NE", "E", "SE", "S", "SW", "W", "NW"]).optional(),
     /** Which room dimension a wall runs along, when `areaM2` is not given (area = that × height). */
     along: z.enum(["length", "width"]).optional(),
     areaM2: positive(1e6, "m²").optional(),
