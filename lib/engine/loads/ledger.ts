@@ -58,6 +58,8 @@ export interface LedgerContext {
    * is counted on both sides.
    */
   sharedSurfaces: ReadonlyMap<string, ReadonlyArray<SharedSurface>>;
+  /** Doors set in a wall, by `${roomId}:${surfaceIndex}` of the room the wall is entered in. */
+  doorsInWall: ReadonlyMap<string, ReadonlyArray<{ door: DoorInput; index: number }>>;
 }
 
 export interface SharedSurface {
@@ -185,6 +187,28 @@ export function contextFromParsed(input: LedgerInput): LedgerContext {
       }
     });
   });
+  // Doors set in a wall: their area comes out of the wall's; more door than wall is refused.
+  const doorsInWall = new Map<string, { door: DoorInput; index: number }[]>();
+  input.doors.forEach((door, index) => {
+    if (!door.wall) return;
+    const key = `${door.wall.roomId}:${door.wall.surfaceIndex}`;
+    const list = doorsInWall.get(key) ?? [];
+    list.push({ door, index });
+    doorsInWall.set(key, list);
+    const ri = roomIndex.get(door.wall.roomId);
+    if (ri === undefined) fail(`doors.${index}.wall.roomId`, `no room with id "${door.wall.roomId}"`);
+    const room = input.rooms[ri];
+    const surface = room.surfaces[door.wall.surfaceIndex];
+    if (!surface || surface.kind !== "wall") fail(`doors.${index}.wall.surfaceIndex`, `room "${room.id}" has no wall at surfaces.${door.wall.surfaceIndex}`);
+    const wallM2 = surfaceAreaM2(surface, room, `rooms.${ri}.surfaces.${door.wall.surfaceIndex}`);
+    const doorsM2 = list.reduce((a, d) => a + d.door.widthM * d.door.heightM, 0);
+    if (doorsM2 > wallM2 * (1 + 1e-9)) {
+      fail(
+        `doors.${index}.wall`,
+        `the doors in wall rooms.${ri}.surfaces.${door.wall.surfaceIndex} (${list.map((d) => d.door.id).join(", ")}) add up to ${doorsM2.toFixed(2)} m², more than the wall's ${wallM2.toFixed(2)} m²: make the doors smaller or the wall larger`,
+      );
+    }
+  });
   const commodities = new Map<string, Commodity>();
   // `commodities` came after the first contract; inputs built by hand may not carry it.
   for (const c of input.commodities ?? []) commodities.set(c.id, buildCustomCommodity(c));
@@ -204,6 +228,7 @@ export function contextFromParsed(input: LedgerInput): LedgerContext {
     doorsByRoom,
     commodities,
     sharedSurfaces,
+    doorsInWall,
   };
 }
 
@@ -323,9 +348,50 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   const multiplier = room.ripening?.chargeActive ? room.ripening.respirationMultiplier : 1;
 
   // Transmission ---------------------------------------------------------------------------
+  // Door leaves set in a wall: their own line at their own U (default the wall's), same temperatures.
+  const doorLeaves = (doors: ReadonlyArray<{ door: DoorInput; index: number }>, wallU: number, tOutC: number, wallLabel: string, solarK: number) => {
+    for (const { door, index } of doors) {
+      const a = door.widthM * door.heightM;
+      const u = door.uValueWm2K ?? wallU;
+      const qW = transmissionW(u, a, tOutC, tRoom);
+      const ignored = qW < 0 && ignoreColder;
+      const powerW = ignored ? 0 : qW;
+      if (qW < 0) heatOutflowW -= qW;
+      components.push(
+        component(
+          "transmission",
+          `door ${door.name ?? door.id} (leaf, in ${wallLabel})`,
+          powerW,
+          0,
+          {
+            method: "Transmission through a door leaf set in a wall, q = U·A·ΔT",
+            source: `${HANDBOOK}; the door's area is taken out of the wall's`,
+            inputs: {
+              door: `doors.${index}`,
+              doorAreaM2: round(a),
+              uValueWm2K: round(u),
+              uFrom: door.uValueWm2K === undefined ? "the wall's U (no door U given)" : "door leaf U given",
+              otherSideTempC: round(tOutC - solarK),
+              solarAllowanceK: solarK,
+              roomTempC: tRoom,
+              computedW: round(qW),
+              colderSide: ignored ? "heat to a colder side ignored (option colderNeighbour = ignore)" : "counted",
+            },
+            formula: "q = U_door·A_door·(T_other + solar − T_room)",
+          },
+          door.id,
+        ),
+      );
+      spreadPeriodic(hourly, powerW * 24, 0, 24);
+    }
+  };
+
   room.surfaces.forEach((s, j) => {
     const field = `${at}.surfaces.${j}`;
-    const areaM2 = surfaceAreaM2(s, room, field);
+    const inWall = ctx.doorsInWall?.get(`${room.id}:${j}`) ?? [];
+    const grossM2 = surfaceAreaM2(s, room, field);
+    const doorsM2 = inWall.reduce((a, d) => a + d.door.widthM * d.door.heightM, 0);
+    const areaM2 = Math.max(0, grossM2 - doorsM2);
     const rsi = s.insideFilmM2KW ?? INSIDE_FILM_M2KW;
     const rse = s.outsideFilmM2KW ?? defaultOutsideFilm(s);
     const u = uValue(s.layers, rsi, rse, s.uValueWm2K);
@@ -365,6 +431,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
           source: `${HANDBOOK}; U = 1/(R_si + ΣL/λ + R_se), ASHRAE Handbook—Fundamentals; sun allowance table (from memory)`,
           inputs: {
             areaM2: round(areaM2),
+            ...(inWall.length ? { grossAreaM2: round(grossM2), doorsAreaM2: round(doorsM2), doorsInWall: inWall.map((d) => d.door.id).join(", ") } : {}),
             uValueWm2K: round(u.uValueWm2K),
             uMethod: u.method,
             insideFilmM2KW: s.uValueWm2K === undefined ? rsi : "in U",
@@ -375,18 +442,22 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
             computedW: round(qW),
             colderSide: ignored ? "heat to a colder side ignored (option colderNeighbour = ignore)" : "counted",
           },
-          formula: "q = U·A·(T_other + solar − T_room)",
+          formula: inWall.length ? "q = U·(A_gross − ΣA_doors)·(T_other + solar − T_room)" : "q = U·A·(T_other + solar − T_room)",
         },
         s.id,
       ),
     );
     spreadPeriodic(hourly, powerW * 24, 0, 24);
+    doorLeaves(inWall, u.uValueWm2K, tOutC, label, solarK);
   });
   // The same transmission seen from this room, for shared surfaces entered in a neighbour.
   for (const m of ctx.sharedSurfaces.get(room.id) ?? []) {
     const s = m.surface;
     const field = `rooms.${m.ownerIndex}.surfaces.${m.surfaceIndex}`;
-    const areaM2 = surfaceAreaM2(s, m.owner, field);
+    const inWall = ctx.doorsInWall?.get(`${m.owner.id}:${m.surfaceIndex}`) ?? [];
+    const grossM2 = surfaceAreaM2(s, m.owner, field);
+    const doorsM2 = inWall.reduce((a, d) => a + d.door.widthM * d.door.heightM, 0);
+    const areaM2 = Math.max(0, grossM2 - doorsM2);
     const rsi = s.insideFilmM2KW ?? INSIDE_FILM_M2KW;
     const rse = s.outsideFilmM2KW ?? defaultOutsideFilm(s);
     const u = uValue(s.layers, rsi, rse, s.uValueWm2K);
@@ -407,6 +478,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
           inputs: {
             enteredIn: `${field} (room ${m.owner.id})`,
             areaM2: round(areaM2),
+            ...(inWall.length ? { grossAreaM2: round(grossM2), doorsAreaM2: round(doorsM2), doorsInWall: inWall.map((d) => d.door.id).join(", ") } : {}),
             uValueWm2K: round(u.uValueWm2K),
             uMethod: u.method,
             otherSideTempC: otherC,
@@ -420,6 +492,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
       ),
     );
     spreadPeriodic(hourly, powerW * 24, 0, 24);
+    doorLeaves(inWall, u.uValueWm2K, otherC, `${s.kind} shared with room ${m.owner.id}`, 0);
   }
 
   // Door infiltration -------------------------------------------------------------------------
