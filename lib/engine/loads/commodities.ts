@@ -35,6 +35,12 @@ export interface Commodity {
   frozenConductivityWmK?: number;
   /** Fresh produce only. */
   respiration?: RespirationData;
+  /**
+   * Transpiration coefficient k_t, ng/(kg·s·Pa): moisture lost per kg of produce per second and
+   * per Pa of vapour-pressure deficit between the produce surface and the room air (fresh
+   * produce only; ASHRAE Handbook—Refrigeration, thermal properties of foods, transpiration).
+   */
+  transpirationNgKgSPa?: number;
   /** Where each value comes from, keyed by field name. */
   sources: Record<string, string>;
 }
@@ -45,6 +51,8 @@ const SRC_CHEN_ABOVE = "Chen (1985): c_u = 4.19 − 2.30·x_s − 0.628·x_s³ k
 const SRC_CHEN_BELOW = "Chen (1985): frozen matrix 1.55 + 1.26·x_s kJ/(kg·K); latent release added from the ice fraction";
 const SRC_LATENT = "L0·(x_wo − x_b), L0 = 333.6 kJ/kg, x_b = 0.4·x_p (Schwartzberg 1976, as in the ASHRAE Handbook)";
 const SRC_FG = "Becker & Fricke respiration coefficients f, g, as tabulated in the ASHRAE Handbook—Refrigeration, from memory";
+const SRC_KT =
+  "ASHRAE Handbook—Refrigeration, thermal properties of foods chapter, table of transpiration coefficients of fruits and vegetables (after Sastry et al. 1978), from memory; check against the table";
 const SRC_PHYS = "typical value, from memory of the ASHRAE thermal properties of foods data (check for your product)";
 
 /** Chen (1985) unfrozen specific heat from the solids fraction, kJ/(kg·K). */
@@ -69,21 +77,24 @@ interface Raw {
   respiration?: RespirationData;
   respirationSource?: string;
   compositionSource?: string;
+  /** Transpiration coefficient, ng/(kg·s·Pa). */
+  kt?: number;
+  transpirationSource?: string;
 }
 
 const fg = (f: number, g: number): RespirationData => ({ kind: "fg", f, g });
 
 const RAW: Raw[] = [
   // Fruit
-  { id: "apples", name: "Apples", group: "fruit", waterPct: 83.9, proteinPct: 0.3, tfC: -1.1, respiration: fg(5.6871e-4, 2.5977) },
-  { id: "pears", name: "Pears", group: "fruit", waterPct: 83.7, proteinPct: 0.4, tfC: -1.6, respiration: fg(6.3614e-5, 3.2037) },
+  { id: "apples", name: "Apples", group: "fruit", waterPct: 83.9, proteinPct: 0.3, tfC: -1.1, respiration: fg(5.6871e-4, 2.5977), kt: 42 },
+  { id: "pears", name: "Pears", group: "fruit", waterPct: 83.7, proteinPct: 0.4, tfC: -1.6, respiration: fg(6.3614e-5, 3.2037), kt: 80 },
   { id: "strawberries", name: "Strawberries", group: "fruit", waterPct: 91.6, proteinPct: 0.7, tfC: -0.8, respiration: fg(3.6683e-4, 3.033) },
-  { id: "grapes", name: "Grapes, table", group: "fruit", waterPct: 81.3, proteinPct: 0.7, tfC: -2.1, respiration: fg(7.056e-5, 3.033) },
-  { id: "oranges", name: "Oranges", group: "fruit", waterPct: 86.8, proteinPct: 0.9, tfC: -0.8, respiration: fg(2.805e-4, 2.684) },
-  { id: "lemons", name: "Lemons", group: "fruit", waterPct: 89.0, proteinPct: 1.1, tfC: -1.4, respiration: fg(0.011192, 1.774) },
+  { id: "grapes", name: "Grapes, table", group: "fruit", waterPct: 81.3, proteinPct: 0.7, tfC: -2.1, respiration: fg(7.056e-5, 3.033), kt: 79 },
+  { id: "oranges", name: "Oranges", group: "fruit", waterPct: 86.8, proteinPct: 0.9, tfC: -0.8, respiration: fg(2.805e-4, 2.684), kt: 117 },
+  { id: "lemons", name: "Lemons", group: "fruit", waterPct: 89.0, proteinPct: 1.1, tfC: -1.4, respiration: fg(0.011192, 1.774), kt: 186 },
   { id: "limes", name: "Limes", group: "fruit", waterPct: 88.3, proteinPct: 0.7, tfC: -1.6, respiration: fg(2.9834e-8, 4.7329) },
-  { id: "grapefruit", name: "Grapefruit", group: "fruit", waterPct: 90.9, proteinPct: 0.6, tfC: -1.1, respiration: fg(0.0035828, 1.9982) },
-  { id: "peaches", name: "Peaches", group: "fruit", waterPct: 88.9, proteinPct: 0.9, tfC: -0.9, respiration: fg(1.2996e-5, 3.6417) },
+  { id: "grapefruit", name: "Grapefruit", group: "fruit", waterPct: 90.9, proteinPct: 0.6, tfC: -1.1, respiration: fg(0.0035828, 1.9982), kt: 81 },
+  { id: "peaches", name: "Peaches", group: "fruit", waterPct: 88.9, proteinPct: 0.9, tfC: -0.9, respiration: fg(1.2996e-5, 3.6417), kt: 572 },
   { id: "plums", name: "Plums", group: "fruit", waterPct: 87.2, proteinPct: 0.7, tfC: -0.8, respiration: fg(8.608e-5, 2.972) },
   { id: "blueberries", name: "Blueberries", group: "fruit", waterPct: 84.2, proteinPct: 0.7, tfC: -1.6, respiration: fg(7.252e-5, 3.2584) },
   {
@@ -100,15 +111,15 @@ const RAW: Raw[] = [
       "heat of respiration of green bananas, from memory of USDA Agriculture Handbook 66 / ASHRAE tables; check against supplier data",
   },
   // Vegetables
-  { id: "potatoes", name: "Potatoes, mature", group: "vegetable", waterPct: 79.0, proteinPct: 2.0, tfC: -0.6, respiration: fg(0.01709, 1.769) },
-  { id: "carrots", name: "Carrots, topped", group: "vegetable", waterPct: 87.8, proteinPct: 0.9, tfC: -1.4, respiration: fg(0.050018, 1.7926) },
-  { id: "cabbage", name: "Cabbage", group: "vegetable", waterPct: 92.2, proteinPct: 1.3, tfC: -0.9, respiration: fg(6.0803e-4, 2.6183) },
-  { id: "onions", name: "Onions, dry", group: "vegetable", waterPct: 89.7, proteinPct: 1.1, tfC: -0.9, respiration: fg(3.668e-4, 2.538) },
-  { id: "tomatoes", name: "Tomatoes, mature green", group: "vegetable", waterPct: 93.8, proteinPct: 0.9, tfC: -0.5, respiration: fg(2.0074e-4, 2.835) },
+  { id: "potatoes", name: "Potatoes, mature", group: "vegetable", waterPct: 79.0, proteinPct: 2.0, tfC: -0.6, respiration: fg(0.01709, 1.769), kt: 44 },
+  { id: "carrots", name: "Carrots, topped", group: "vegetable", waterPct: 87.8, proteinPct: 0.9, tfC: -1.4, respiration: fg(0.050018, 1.7926), kt: 1207 },
+  { id: "cabbage", name: "Cabbage", group: "vegetable", waterPct: 92.2, proteinPct: 1.3, tfC: -0.9, respiration: fg(6.0803e-4, 2.6183), kt: 223 },
+  { id: "onions", name: "Onions, dry", group: "vegetable", waterPct: 89.7, proteinPct: 1.1, tfC: -0.9, respiration: fg(3.668e-4, 2.538), kt: 60 },
+  { id: "tomatoes", name: "Tomatoes, mature green", group: "vegetable", waterPct: 93.8, proteinPct: 0.9, tfC: -0.5, respiration: fg(2.0074e-4, 2.835), kt: 140 },
   { id: "green-peppers", name: "Green peppers", group: "vegetable", waterPct: 92.2, proteinPct: 0.9, tfC: -0.7, respiration: fg(3.5104e-4, 2.7414) },
   { id: "snap-beans", name: "Snap beans", group: "vegetable", waterPct: 90.3, proteinPct: 1.8, tfC: -0.7, respiration: fg(0.0032828, 2.5077) },
-  { id: "brussels-sprouts", name: "Brussels sprouts", group: "vegetable", waterPct: 86.0, proteinPct: 3.4, tfC: -0.8, respiration: fg(0.0027238, 2.5728) },
-  { id: "rutabagas", name: "Rutabagas", group: "vegetable", waterPct: 89.7, proteinPct: 1.1, tfC: -1.1, respiration: fg(1.6524e-4, 2.9039) },
+  { id: "brussels-sprouts", name: "Brussels sprouts", group: "vegetable", waterPct: 86.0, proteinPct: 3.4, tfC: -0.8, respiration: fg(0.0027238, 2.5728), kt: 6150 },
+  { id: "rutabagas", name: "Rutabagas", group: "vegetable", waterPct: 89.7, proteinPct: 1.1, tfC: -1.1, respiration: fg(1.6524e-4, 2.9039), kt: 469 },
   { id: "lima-beans", name: "Lima beans", group: "vegetable", waterPct: 70.2, proteinPct: 6.8, tfC: -0.6, respiration: fg(9.1051e-4, 2.848) },
   { id: "green-peas", name: "Green peas (for freezing)", group: "vegetable", waterPct: 78.9, proteinPct: 5.4, tfC: -0.6, densityKgM3: 1000, frozenConductivityWmK: 1.2 },
   // Meat and poultry
@@ -168,6 +179,7 @@ function build(raw: Raw): Commodity {
   if (raw.densityKgM3 !== undefined) sources.densityKgM3 = SRC_PHYS;
   if (raw.frozenConductivityWmK !== undefined) sources.frozenConductivityWmK = SRC_PHYS;
   if (raw.respiration) sources.respiration = raw.respirationSource ?? SRC_FG;
+  if (raw.kt !== undefined) sources.transpirationNgKgSPa = raw.transpirationSource ?? SRC_KT;
   return {
     id: raw.id,
     name: raw.name,
@@ -181,6 +193,7 @@ function build(raw: Raw): Commodity {
     densityKgM3: raw.densityKgM3,
     frozenConductivityWmK: raw.frozenConductivityWmK,
     respiration: raw.respiration,
+    transpirationNgKgSPa: raw.kt,
     sources,
   };
 }
@@ -196,6 +209,8 @@ export interface CustomCommodityInput {
   densityKgM3?: number;
   frozenConductivityWmK?: number;
   respiration?: { f: number; g: number } | { points: Array<[number, number]> };
+  /** Transpiration coefficient, ng/(kg·s·Pa). */
+  transpirationNgKgSPa?: number;
   /** Where the data come from (lab report, supplier sheet, handbook table …). */
   source: string;
 }
@@ -220,6 +235,8 @@ export function buildCustomCommodity(input: CustomCommodityInput): Commodity {
     densityKgM3: input.densityKgM3,
     frozenConductivityWmK: input.frozenConductivityWmK,
     respiration,
+    kt: input.transpirationNgKgSPa,
+    transpirationSource: `user data: ${input.source}`,
     respirationSource: `user data: ${input.source}`,
     compositionSource: `user data: ${input.source}`,
   });

@@ -11,6 +11,7 @@ import {
 } from "./infiltration";
 import { PACKAGING_CP_KJKGK, packagingHeatKJ, productHeatSplit } from "./product";
 import { airFromRH, airFromWetBulb, relativeHumidityPct, sitePressurePa, type AirState } from "./psychro";
+import { airVapourPressurePa, evaporationHeatKJkg, surfaceVapourPressurePa, transpirationKgS } from "./moisture";
 import { respirationWPerKg } from "./respiration";
 import {
   ledgerInputSchema,
@@ -319,6 +320,52 @@ function packagingMassKg(p: PackagingInput, productKg: number): number {
 
 /** Trace values are kept at full precision; the UI formats them. */
 const round = (x: number) => x;
+
+/**
+ * The moisture a fresh product loses (transpiration, ṁ = k_t·m·(p_s − p_a)) evaporates from the
+ * produce and condenses (or frosts) on the coil: its heat ṁ·h_fg moves from the sensible to the
+ * latent side of the room's load. The evaporation is driven by heat already in the ledger
+ * (respiration, the product's own pull-down, the air), so the line adds latent load and takes
+ * the same off the sensible side: its total is zero, the sensible heat ratio falls.
+ * `excessOverC`: for a warm stream, only the excess over the loss at that temperature.
+ */
+function moistureLine(
+  c: Commodity,
+  massKg: number,
+  productTempC: number,
+  hoursPerDay: number,
+  air: AirState,
+  sourceId: string,
+  what: "stored" | "pull-down",
+  excessOverC?: number,
+): LoadComponent {
+  const kt = c.transpirationNgKgSPa as number;
+  let kgS = transpirationKgS(kt, massKg, productTempC, air);
+  if (excessOverC !== undefined) kgS = Math.max(0, kgS - transpirationKgS(kt, massKg, excessOverC, air));
+  const kgPerDay = kgS * 3600 * hoursPerDay;
+  const hfg = evaporationHeatKJkg(productTempC);
+  const latentW = (kgPerDay * hfg * 1000) / 86400;
+  const trace: LoadTrace = {
+    method: `Product moisture loss (transpiration)${what === "pull-down" ? " during pull-down, excess over storage" : ""}`,
+    source: `ASHRAE Handbook—Refrigeration, thermal properties of foods: transpiration ṁ = k_t·(p_s − p_a); vapour pressures Hyland–Wexler (ASHRAE Fundamentals); k_t: ${c.sources.transpirationNgKgSPa}`,
+    inputs: {
+      commodity: c.id,
+      massKg: round(massKg),
+      productTempC: round(productTempC),
+      transpirationNgKgSPa: kt,
+      surfaceVapourPressurePa: round(surfaceVapourPressurePa(productTempC)),
+      airVapourPressurePa: round(airVapourPressurePa(air)),
+      hoursPerDay,
+      moistureLossKgPerDay: round(kgPerDay),
+      weightLossPctPerDay: massKg > 0 ? round((100 * kgPerDay) / massKg) : 0,
+      evaporationHeatKJkg: round(hfg),
+      effect: "latent load on the coil; the same heat comes off the sensible side (total unchanged)",
+    },
+    formula: "ṁ = k_t·m·(p_s(T_product) − p_a); q_latent = ṁ·h_fg; q_sensible = −q_latent",
+  };
+  const line = component("moisture", `${c.name}: moisture loss${what === "pull-down" ? " during pull-down" : ""}`, 0, latentW, trace, sourceId);
+  return line;
+}
 
 // ---------------------------------------------------------------------------------------------
 
@@ -712,6 +759,12 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
         dailyKJ += wh * 3.6;
       }
     }
+    // Warm produce also loses moisture faster during its pull-down: the excess over the rate
+    // at the room temperature (which the stored mass carries) for the pull-down hours.
+    if ((c.group === "fruit" || c.group === "vegetable") && chilled && p.massKgPerDay > 0 && (c.transpirationNgKgSPa ?? 0) > 0) {
+      const meanC = (p.enteringTempC + tFinal) / 2;
+      if (meanC > tRoom) components.push(moistureLine(c, p.massKgPerDay, meanC, Math.min(p.pullDownHours, 24), air, p.id ?? `${j}`, "pull-down", tRoom));
+    }
     const dailyWh = dailyKJ / 3.6;
     if (p.arrivalsByHour) {
       const sum = p.arrivalsByHour.reduce((a, b) => a + b, 0);
@@ -761,6 +814,9 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
       ),
     );
     spreadPeriodic(hourly, powerW * 24, 0, 24);
+    if (c.transpirationNgKgSPa !== undefined && c.transpirationNgKgSPa > 0) {
+      components.push(moistureLine(c, massKg, tRoom, 24, air, `${j}`, "stored"));
+    }
   });
 
   // Batch freezing ------------------------------------------------------------------------------

@@ -352,6 +352,8 @@ export const customCommoditySchema = z
         z.object({ points: z.array(z.tuple([range(-5, 40, "°C"), positive(5000, "mW/kg")])).min(1, "give at least one point") }),
       ])
       .optional(),
+    /** Transpiration coefficient k_t, ng/(kg·s·Pa) (fresh produce: moisture loss in storage). */
+    transpirationNgKgSPa: range(0, 100_000, "ng/(kg·s·Pa)").optional(),
     source: z.string().min(1, "name where the data come from"),
   })
   .superRefine((c, ctx) => {
