@@ -219,6 +219,7 @@ export async function installedDto(workspaceId: string, facilityId: string, marg
     margin,
     rooms: Object.fromEntries(model.rooms.map((r) => [r.id, r.name])),
     circuits: Object.fromEntries(result.plant.circuits.map((c) => [c.id, c.tag])),
+    twoStageCircuits: model.plant.circuits.filter((c) => c.arrangement === "two-stage").map((c) => c.id),
   };
 }
 
