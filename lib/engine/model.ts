@@ -48,7 +48,7 @@ export { rerateInstalled } from "./plant/rerate";
 export { stullWetBulbC, ambientOf } from "./plant/ambient";
 
 export const FACILITY_SCHEMA_VERSION = 1 as const;
-export const PLANT_ENGINE_VERSION = "plant-1.0.0";
+export const PLANT_ENGINE_VERSION = "plant-1.1.0";
 
 const plantPart = z.object({
   schemaVersion: z.literal(FACILITY_SCHEMA_VERSION),

@@ -26,7 +26,7 @@ import {
 import { INSIDE_FILM_M2KW, defaultOutsideFilm, solarAllowanceK, surfaceAreaM2, transmissionW, uValue } from "./transmission";
 import type { LoadComponent, LoadComponentKind, LoadTrace } from "./types";
 
-export const ENGINE_VERSION = "loads-1.0.0";
+export const ENGINE_VERSION = "loads-1.1.0";
 
 const HANDBOOK = "ASHRAE Handbook—Refrigeration, refrigerated-facility loads chapter";
 
