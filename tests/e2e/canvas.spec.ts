@@ -153,8 +153,10 @@ test.describe("walls, sun and doors in walls", () => {
     await page.getByLabel("Sits in wall").selectOption({ label: "Chill room: wall SW (surface 1)" });
     await page.getByLabel("Door leaf U-value").fill("0.6");
     await saved(page);
+    await page.getByLabel("Sits in wall").scrollIntoViewIfNeeded();
     await shot(page, "canvas-door-in-wall");
     await node(page, "room:").click();
+    await page.getByLabel("Surface 2 colour").scrollIntoViewIfNeeded();
     await shot(page, "canvas-walls-sun");
 
     const m = await (await page.request.get(`/api/v1/workspaces/${WS}/facilities/${id}/model`)).json();
