@@ -11,7 +11,7 @@ import {
 } from "./infiltration";
 import { PACKAGING_CP_KJKGK, packagingHeatKJ, productHeatSplit } from "./product";
 import { airFromRH, airFromWetBulb, relativeHumidityPct, sitePressurePa, type AirState } from "./psychro";
-import { airVapourPressurePa, evaporationHeatKJkg, surfaceVapourPressurePa, transpirationKgS } from "./moisture";
+import { airVapourPressurePa, evaporationHeatKJkg, surfaceVapourPressurePa } from "./moisture";
 import { respirationWPerKg } from "./respiration";
 import {
   ledgerInputSchema,
@@ -318,6 +318,8 @@ function packagingMassKg(p: PackagingInput, productKg: number): number {
   return (p.massFractionOfProduct ?? 0) * productKg;
 }
 
+const NO_DOORS: ReadonlyArray<{ door: DoorInput; index: number }> = [];
+
 /** Trace values are kept at full precision; the UI formats them. */
 const round = (x: number) => x;
 
@@ -340,8 +342,12 @@ function moistureLine(
   excessOverC?: number,
 ): LoadComponent {
   const kt = c.transpirationNgKgSPa as number;
-  let kgS = transpirationKgS(kt, massKg, productTempC, air);
-  if (excessOverC !== undefined) kgS = Math.max(0, kgS - transpirationKgS(kt, massKg, excessOverC, air));
+  // ṁ = k_t·m·(p_s − p_a), each pressure computed once (this runs inside the plant's loop).
+  const pA = airVapourPressurePa(air);
+  const pS = surfaceVapourPressurePa(productTempC);
+  const rate = (ps: number) => Math.max(0, kt * 1e-12 * massKg * (ps - pA));
+  let kgS = rate(pS);
+  if (excessOverC !== undefined) kgS = Math.max(0, kgS - rate(surfaceVapourPressurePa(excessOverC)));
   const kgPerDay = kgS * 3600 * hoursPerDay;
   const hfg = evaporationHeatKJkg(productTempC);
   const latentW = (kgPerDay * hfg * 1000) / 86400;
@@ -353,8 +359,8 @@ function moistureLine(
       massKg: round(massKg),
       productTempC: round(productTempC),
       transpirationNgKgSPa: kt,
-      surfaceVapourPressurePa: round(surfaceVapourPressurePa(productTempC)),
-      airVapourPressurePa: round(airVapourPressurePa(air)),
+      surfaceVapourPressurePa: round(pS),
+      airVapourPressurePa: round(pA),
       hoursPerDay,
       moistureLossKgPerDay: round(kgPerDay),
       weightLossPctPerDay: massKg > 0 ? round((100 * kgPerDay) / massKg) : 0,
@@ -435,7 +441,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
 
   room.surfaces.forEach((s, j) => {
     const field = `${at}.surfaces.${j}`;
-    const inWall = ctx.doorsInWall?.get(`${room.id}:${j}`) ?? [];
+    const inWall = ctx.doorsInWall?.size ? (ctx.doorsInWall.get(`${room.id}:${j}`) ?? NO_DOORS) : NO_DOORS;
     const grossM2 = surfaceAreaM2(s, room, field);
     const doorsM2 = inWall.reduce((a, d) => a + d.door.widthM * d.door.heightM, 0);
     const areaM2 = Math.max(0, grossM2 - doorsM2);
@@ -501,7 +507,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   for (const m of ctx.sharedSurfaces.get(room.id) ?? []) {
     const s = m.surface;
     const field = `rooms.${m.ownerIndex}.surfaces.${m.surfaceIndex}`;
-    const inWall = ctx.doorsInWall?.get(`${m.owner.id}:${m.surfaceIndex}`) ?? [];
+    const inWall = ctx.doorsInWall?.size ? (ctx.doorsInWall.get(`${m.owner.id}:${m.surfaceIndex}`) ?? NO_DOORS) : NO_DOORS;
     const grossM2 = surfaceAreaM2(s, m.owner, field);
     const doorsM2 = inWall.reduce((a, d) => a + d.door.widthM * d.door.heightM, 0);
     const areaM2 = Math.max(0, grossM2 - doorsM2);
