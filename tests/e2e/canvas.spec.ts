@@ -166,6 +166,25 @@ test.describe("walls, sun and doors in walls", () => {
   });
 });
 
+test.describe("hot-gas defrost on the circuits page", () => {
+  test.use({ storageState: stateOf("designer") });
+
+  test("the circuit supplying the hot gas shows the defrost heat it carries and for which coil", async ({ page }) => {
+    const plant = {
+      evaporators: [{ id: "ev1", tag: "EV-1", roomId: "cold-1", circuitId: "c1", defrost: { type: "hot-gas" } }],
+      circuits: [{ id: "c1", tag: "C-1", refrigerant: "R717", heatRejection: { to: "condenser", condenserId: "cd1" } }],
+      condensers: [{ id: "cd1", tag: "CD-1", type: "evaporative" }],
+    };
+    const id = await newFacility(page.request, `Hot gas ${Date.now()}`, { schemaVersion: 1, rooms: [{ ...ROOM, setPointC: -20, rhPct: 90 }], doors: [], plant });
+    await page.goto(`/w/${WS}/f/${id}/circuits`);
+    const row = page.locator("dt", { hasText: "Hot-gas defrost carried" });
+    await expect(row).toBeVisible({ timeout: 20_000 });
+    await expect(row.locator("xpath=following-sibling::dd[1]")).toHaveText(/kW\(r\)/);
+    await expect(page.locator("dl div", { hasText: "Hot-gas defrost carried" }).first()).toHaveAttribute("title", /EV-1 \(cold-1\)/);
+    await shot(page, "circuits-hot-gas");
+  });
+});
+
 test.describe("keyboard on the canvas", () => {
   test.use({ storageState: stateOf("designer") });
 
