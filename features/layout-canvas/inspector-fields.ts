@@ -52,6 +52,7 @@ export const FIELDS: Record<Exclude<NodeKind, "outdoors">, FieldDef[]> = {
     { name: "openCloseSecondsPerPassage", label: "Open–close time per passage", type: "number", suffix: "s", optional: true, hint: "default 20 s" },
     { name: "minutesHeldOpenPerDay", label: "Held open", type: "number", suffix: "min/day", optional: true },
     { name: "protection", label: "Protection", type: "select", options: ["none", "stripCurtain", "airCurtain", "vestibule", "fastDoor"], optional: true },
+    { name: "uValueWm2K", label: "Door leaf U-value", type: "number", suffix: "W/(m²·K)", optional: true, hint: "default: the U-value of the wall it sits in" },
   ],
   evaporator: [
     { name: "tag", label: "Tag", type: "text" },

@@ -28,6 +28,7 @@ export const KIND_LABEL: Record<LoadComponentKind, string> = {
   packaging: "Packaging",
   batch: "Batch freezing",
   respiration: "Respiration",
+  moisture: "Product moisture loss",
   people: "People",
   lights: "Lights",
   machinery: "Machinery",

@@ -215,10 +215,11 @@ export async function installedDto(workspaceId: string, facilityId: string, marg
   return {
     version: m.version,
     installed: recorded && recorded.evaporators.length + recorded.compressors.length + recorded.condensers.length > 0 ? recorded : null,
-    proposed: installedFromDesign(result, margin),
+    proposed: installedFromDesign(result, margin, model.rooms),
     margin,
     rooms: Object.fromEntries(model.rooms.map((r) => [r.id, r.name])),
     circuits: Object.fromEntries(result.plant.circuits.map((c) => [c.id, c.tag])),
+    twoStageCircuits: model.plant.circuits.filter((c) => c.arrangement === "two-stage").map((c) => c.id),
   };
 }
 

@@ -74,4 +74,6 @@ export interface InstalledDto {
   margin: number;
   rooms: Record<string, string>;
   circuits: Record<string, string>;
+  /** Ids of the two-stage circuits, whose compressor sets are assigned to a stage. */
+  twoStageCircuits?: string[];
 }

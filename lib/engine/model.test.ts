@@ -324,10 +324,23 @@ describe("installed plant re-rating", () => {
     p.installed = installed;
     const m = model(p);
     // Apples room at +2 °C on a circuit whose suction we set to −4 °C (allowance 1 K → coil at −3 °C):
-    // TD = 5 K, so by Q = UA·TD (DOMAIN.md §2) 2 running × 20 kW × 5/8 = 25 kW (hand calculation).
+    // TD = 5 K. By Q = UA·TD (DOMAIN.md §2) 2 running × 20 kW × 5/8 = 25 kW for a dry coil; the
+    // re-rating adds each state's latent driving part (rated at 85 % RH by default, the room's RH
+    // on site), and the coil below 0 °C loses 10 % to frost (common practice).
     const r = rerateInstalled(m, { circuits: { mt: { suctionC: -4, condensingC: 30 } } });
     const room = r.rooms.find((x) => x.roomId === "apples")!;
-    expect(room.evaporatorCapacityW).toBeCloseTo(25_000, 6);
+    const ev = r.evaporators.find((x) => x.id === "i-ev")!;
+    expect(ev.siteTdK).toBeCloseTo(5, 9);
+    expect(ev.runningUnits).toBe(2);
+    expect(ev.frostCapacityLoss).toBe(0.1);
+    expect(room.evaporatorCapacityW).toBeCloseTo(2 * 20_000 * (ev.siteDrivingK / ev.ratingDrivingK) * 0.9, 6);
+    // Dry states on both sides give back UA·TD exactly.
+    const dry = structuredClone(p);
+    dry.installed.evaporators[0] = { ...installed.evaporators[0], rating: { airOnC: 2, tdK: 8, feed: "dx", rhPct: 0 }, frostCapacityLoss: 0 };
+    const dm = model(dry);
+    dm.rooms.find((x) => x.id === "apples")!.rhPct = 0;
+    const d = rerateInstalled(dm, { circuits: { mt: { suctionC: -4, condensingC: 30 } } });
+    expect(d.rooms.find((x) => x.roomId === "apples")!.evaporatorCapacityW).toBeCloseTo(25_000, 6);
   });
 
   it("gives a swept-volume compressor's capacity from suction density and refrigerating effect", () => {

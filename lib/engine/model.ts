@@ -385,7 +385,7 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
         let key = `${plantKey}|${prep.circuitIndex.get(c.id)}|${hashOf(c)}|`;
         for (const e of evs) {
           const room = cctx.rooms.get(e.roomId);
-          key += `${e.id}@${prep.evapIndex.get(e.id)}:${e.dutyW}:${e.tdK}:${hashOf(e.feed)}:${room?.setPointC}/${room?.rhPct},`;
+          key += `${e.id}@${prep.evapIndex.get(e.id)}:${e.dutyW}:${e.tdK}:${hashOf(e.feed)}:${room?.setPointC}/${room?.rhPct}:${e.defrost.type === "hot-gas" ? hashOf(e.defrost) : "-"},`;
         }
         for (const l of lows) key += `<${l.id}:${done.get(l.id)?.heatRejectedW ?? 0}@${done.get(l.id)?.entropySinkC ?? 0}`;
         let entry = circuitMemo.get(key);

@@ -128,6 +128,63 @@ test.describe("designer on the canvas", () => {
   });
 });
 
+test.describe("walls, sun and doors in walls", () => {
+  test.use({ storageState: stateOf("designer") });
+
+  test("sets a wall's facing and colour, puts the door in that wall at its own U; the load follows and the model keeps it", async ({ page }) => {
+    const door = { id: "d1", name: "Dock door", widthM: 3, heightM: 4, sides: ["cold-1", "outdoors"], passagesPerDay: 10 };
+    const id = await newFacility(page.request, `Sun and doors ${Date.now()}`, { schemaVersion: 1, rooms: [ROOM], doors: [door], plant: {} });
+    await page.goto(`/w/${WS}/f/${id}/layout`);
+    const required = figure(page, "room:", "Required");
+    await expect(required).toHaveText(/kW/, { timeout: 20_000 });
+    await node(page, "room:").click();
+    // The eight facings and three colours are the choices offered.
+    const faces = page.getByLabel("Surface 1 faces");
+    await expect(faces.locator("option")).toHaveText(["(none)", "N", "NE", "E", "SE", "S", "SW", "W", "NW"]);
+    await expect(page.getByLabel("Surface 2 colour").locator("option")).toHaveText(["light", "medium", "dark"]);
+    const before = await required.textContent();
+    await faces.selectOption("SW");
+    await page.getByLabel("Surface 1 colour").selectOption("dark");
+    await page.getByLabel("Surface 2 colour").selectOption("light");
+    await expect(required).not.toHaveText(before!);
+    await saved(page);
+
+    await node(page, "door:").click();
+    await page.getByLabel("Sits in wall").selectOption({ label: "Chill room: wall SW (surface 1)" });
+    await page.getByLabel("Door leaf U-value").fill("0.6");
+    await saved(page);
+    await page.getByLabel("Sits in wall").scrollIntoViewIfNeeded();
+    await shot(page, "canvas-door-in-wall");
+    await node(page, "room:").click();
+    await page.getByLabel("Surface 2 colour").scrollIntoViewIfNeeded();
+    await shot(page, "canvas-walls-sun");
+
+    const m = await (await page.request.get(`/api/v1/workspaces/${WS}/facilities/${id}/model`)).json();
+    expect(m.doc.rooms[0].surfaces[0]).toMatchObject({ orientation: "SW", colour: "dark" });
+    expect(m.doc.rooms[0].surfaces[1]).toMatchObject({ colour: "light" });
+    expect(m.doc.doors[0]).toMatchObject({ wall: { roomId: "cold-1", surfaceIndex: 0 }, uValueWm2K: 0.6 });
+  });
+});
+
+test.describe("hot-gas defrost on the circuits page", () => {
+  test.use({ storageState: stateOf("designer") });
+
+  test("the circuit supplying the hot gas shows the defrost heat it carries and for which coil", async ({ page }) => {
+    const plant = {
+      evaporators: [{ id: "ev1", tag: "EV-1", roomId: "cold-1", circuitId: "c1", defrost: { type: "hot-gas" } }],
+      circuits: [{ id: "c1", tag: "C-1", refrigerant: "R717", heatRejection: { to: "condenser", condenserId: "cd1" } }],
+      condensers: [{ id: "cd1", tag: "CD-1", type: "evaporative" }],
+    };
+    const id = await newFacility(page.request, `Hot gas ${Date.now()}`, { schemaVersion: 1, rooms: [{ ...ROOM, setPointC: -20, rhPct: 90 }], doors: [], plant });
+    await page.goto(`/w/${WS}/f/${id}/circuits`);
+    const row = page.locator("dt", { hasText: "Hot-gas defrost carried" });
+    await expect(row).toBeVisible({ timeout: 20_000 });
+    await expect(row.locator("xpath=following-sibling::dd[1]")).toHaveText(/kW\(r\)/);
+    await expect(page.locator("dl div", { hasText: "Hot-gas defrost carried" }).first()).toHaveAttribute("title", /EV-1 \(cold-1\)/);
+    await shot(page, "circuits-hot-gas");
+  });
+});
+
 test.describe("keyboard on the canvas", () => {
   test.use({ storageState: stateOf("designer") });
 

@@ -1,3 +1,5 @@
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import { test, expect } from "@playwright/test";
 import { emailOf, stateOf, WS } from "./roles";
 import { waitForMailLink } from "./mail";
@@ -47,5 +49,45 @@ test.describe("viewer", () => {
     });
     expect(r.status()).toBe(403);
     expect((await r.json()).error.message).toMatch(/may not create stocking checks/);
+  });
+});
+
+test.describe("designer records installed coils and compressor stages", () => {
+  test.use({ storageState: stateOf("designer") });
+
+  test("sets a coil's feed on site and frost loss, and the two-stage circuit's compressor stage", async ({ page }) => {
+    const read = (p: string) => {
+      const { $comment, ...rest } = JSON.parse(readFileSync(path.resolve(p), "utf8"));
+      void $comment;
+      return rest;
+    };
+    const site = { designDryBulbC: 32, coincidentWetBulbC: 23, groundTempC: 12, elevationM: 150 };
+    const r = await page.request.post(`/api/v1/workspaces/${WS}/facilities`, { data: { name: `Installed stages ${Date.now()}`, site } });
+    expect(r.status()).toBe(201);
+    const id = (await r.json()).facility.id as string;
+    const base = read("seeds/data/harrowfield-model.json");
+    const m0 = await (await page.request.get(`/api/v1/workspaces/${WS}/facilities/${id}/model`)).json();
+    const put = await page.request.put(`/api/v1/workspaces/${WS}/facilities/${id}/model`, {
+      data: { baseVersion: m0.version, doc: { ...base, plant: { ...base.plant, installed: read("lib/engine/stocking/fixtures/harrowfield-installed.json") } } },
+    });
+    expect(put.status(), await put.text()).toBe(200);
+
+    await page.goto(`/w/${WS}/f/${id}/stocking`);
+    await page.getByRole("button", { name: "Edit ratings" }).click();
+    // Only the two-stage circuit's set offers a stage; the single-stage one says so.
+    await expect(page.getByLabel("CP-C-2 stage")).toHaveCount(0);
+    await page.getByLabel("CP-C-1 stage").selectOption("high");
+    await page.getByLabel("EV-3 feed on site").selectOption("pumped");
+    const frost = page.getByLabel("EV-1 frost loss, %");
+    await frost.fill("15");
+    await frost.blur();
+    await page.screenshot({ path: ".run/test/screenshots/installed-stage-feed-frost.png", fullPage: true });
+    await page.getByRole("button", { name: "Save installed plant" }).click();
+    await expect(page.getByText(/Installed plant recorded as model version/)).toBeVisible();
+    const m = await (await page.request.get(`/api/v1/workspaces/${WS}/facilities/${id}/model`)).json();
+    const inst = m.doc.plant.installed;
+    expect(inst.compressors.find((c: { tag: string }) => c.tag === "CP-C-1").stage).toBe("high");
+    expect(inst.evaporators.find((e: { tag: string }) => e.tag === "EV-3").siteFeed).toBe("pumped");
+    expect(inst.evaporators.find((e: { tag: string }) => e.tag === "EV-1").frostCapacityLoss).toBeCloseTo(0.15, 9);
   });
 });

@@ -99,6 +99,13 @@ function CircuitCard({ card, s }: { card: CircuitCardData; s: UnitSystem }) {
             ) : null}
             {c.intermediateC !== undefined ? <Row label="Intermediate" value={fmt.temp(c.intermediateC, s)} /> : null}
             <Row label="Refrigeration" value={fmt.power(c.refrigerationW, s, "refrigeration")} title="Refrigeration duty (not electrical)" />
+            {c.hotGasDefrost && c.hotGasDefrost.heatW > 0 ? (
+              <Row
+                label="Hot-gas defrost carried"
+                value={fmt.power(c.hotGasDefrost.heatW, s, "refrigeration")}
+                title={`24-h mean heat of the hot gas these compressors supply for ${c.hotGasDefrost.byEvaporator.map((e) => `${e.tag} (${e.roomId})`).join(", ")}: ${c.hotGasDefrost.formula}`}
+              />
+            ) : null}
             <Row label="Compressor shaft" value={fmt.power(c.shaftPowerW, s, "electrical").replace("kW(e)", "kW shaft")} title="Mechanical power at the compressor shaft" />
             <Row label="Electrical input" value={fmt.power(c.electricalW, s, "electrical")} title="Compressor motors + pumps + condenser fans" />
             <Row label="Heat rejected" value={fmt.power(c.heatRejectedW, s, "heat")} />

@@ -19,6 +19,11 @@ const OPTION_WORDS: Record<string, string> = {
   ca: "controlled atmosphere",
 };
 
+/** The directions a wall can face and the surface colours the solar allowance knows (lib/engine/loads/transmission.ts). */
+const FACINGS = ["N", "NE", "E", "SE", "S", "SW", "W", "NW"] as const;
+const COLOURS = ["light", "medium", "dark"] as const;
+type SurfaceLike = { kind: string; orientation?: string; colour?: string; otherSide?: unknown; label?: string; id?: string };
+
 export function Inspector(props: {
   nid: string;
   doc: CanvasDoc;
@@ -142,6 +147,7 @@ function EntityForm({ nid, doc, unitSystem: s, canEdit, problems, onChange, onDe
         ))}
       </form>
       <Links kind={kind} entity={entity} doc={doc} disabled={!canEdit} onChange={commitRaw} nid={nid} />
+      {kind === "room" ? <Envelope entity={entity} disabled={!canEdit} onChange={commitRaw} nid={nid} /> : null}
       <JsonEditor key={`${nid}:${JSON.stringify(entity).length}`} entity={entity} schema={schema} disabled={!canEdit} onApply={commitRaw} />
     </section>
   );
@@ -219,9 +225,29 @@ function Links({ kind, entity, doc, disabled, onChange, nid }: { kind: EditKind;
   if (kind === "door") {
     const sides = entity.sides as [string, string];
     const opts = [{ value: OUTDOORS, label: "Outdoors" }, ...rooms];
-    body = [0, 1].map((k) =>
-      sel(k === 0 ? "Opens from" : "Opens to", sides[k] ?? "", opts, (v) => onChange({ ...entity, sides: k === 0 ? [v, sides[1]] : [sides[0], v] }), `side${k}`),
-    );
+    // The walls of the rooms the door joins: its area comes out of the one it sits in.
+    const walls = doc.rooms
+      .filter((r) => sides.includes(r.id))
+      .flatMap((r) =>
+        ((r.surfaces ?? []) as SurfaceLike[]).flatMap((sf, j) =>
+          sf.kind === "wall" ? [{ value: `${r.id}:${j}`, label: `${r.name}: ${sf.label ?? `wall ${sf.orientation ?? ""}`.trim()} (surface ${j + 1})` }] : [],
+        ),
+      );
+    const wall = entity.wall as { roomId: string; surfaceIndex: number } | undefined;
+    body = [
+      ...[0, 1].map((k) =>
+        sel(k === 0 ? "Opens from" : "Opens to", sides[k] ?? "", opts, (v) => onChange({ ...entity, sides: k === 0 ? [v, sides[1]] : [sides[0], v] }), `side${k}`),
+      ),
+      sel("Sits in wall", wall ? `${wall.roomId}:${wall.surfaceIndex}` : "", walls, (v) => {
+        const next = { ...entity };
+        if (!v) delete next.wall;
+        else {
+          const i = v.lastIndexOf(":");
+          next.wall = { roomId: v.slice(0, i), surfaceIndex: Number(v.slice(i + 1)) };
+        }
+        onChange(next);
+      }, "wall"),
+    ];
   } else if (kind === "evaporator") {
     body = [
       sel("Sits in room", String(entity.roomId ?? ""), rooms, (v) => onChange({ ...entity, roomId: v }), "room"),
@@ -258,6 +284,80 @@ function Links({ kind, entity, doc, disabled, onChange, nid }: { kind: EditKind;
     <fieldset className="flex flex-col gap-2 border-t border-line pt-2">
       <legend className="text-xs font-semibold text-muted">Connections</legend>
       {body}
+    </fieldset>
+  );
+}
+
+/**
+ * The room's walls and roof as the solar allowance sees them: which way each wall faces (the
+ * eight compass directions) and the colour of every surface open to the sky (light, medium,
+ * dark). Other surface inputs are in the JSON below.
+ */
+function Envelope({ entity, disabled, onChange, nid }: { entity: Record<string, unknown>; disabled: boolean; onChange: (e: object) => void; nid: string }) {
+  const surfaces = (entity.surfaces ?? []) as SurfaceLike[];
+  const rows = surfaces.map((sf, j) => ({ sf, j })).filter(({ sf }) => sf.kind === "wall" || sf.otherSide === "outdoors");
+  if (rows.length === 0) return null;
+  const set = (j: number, patch: Partial<SurfaceLike>) => {
+    const next = surfaces.map((x, i) => {
+      if (i !== j) return x;
+      const y: SurfaceLike = { ...x, ...patch };
+      if (y.orientation === "") delete y.orientation;
+      return y;
+    });
+    onChange({ ...entity, surfaces: next });
+  };
+  const base = `env-${nid.replace(/[^a-z0-9]/gi, "-")}`;
+  const selCls = "rounded border border-line bg-surface px-1 py-0.5 text-xs";
+  return (
+    <fieldset className="flex flex-col gap-1 border-t border-line pt-2">
+      <legend className="text-xs font-semibold text-muted">Walls and roof (sun)</legend>
+      <table className="text-xs">
+        <thead className="text-left text-muted">
+          <tr>
+            <th className="font-medium">Surface</th>
+            <th className="font-medium">Faces</th>
+            <th className="font-medium">Colour</th>
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map(({ sf, j }) => (
+            <tr key={j}>
+              <td className="py-0.5 pr-1">
+                {j + 1}. {sf.label ?? sf.kind}
+                {sf.otherSide === "outdoors" ? "" : " (inside)"}
+              </td>
+              <td className="py-0.5 pr-1">
+                {sf.kind === "wall" ? (
+                  <select aria-label={`Surface ${j + 1} faces`} id={`${base}-o${j}`} className={selCls} value={sf.orientation ?? ""} disabled={disabled} onChange={(e) => set(j, { orientation: e.target.value })}>
+                    <option value="">(none)</option>
+                    {FACINGS.map((o) => (
+                      <option key={o} value={o}>
+                        {o}
+                      </option>
+                    ))}
+                  </select>
+                ) : (
+                  <span className="text-muted">horizontal</span>
+                )}
+              </td>
+              <td className="py-0.5">
+                {sf.otherSide === "outdoors" ? (
+                  <select aria-label={`Surface ${j + 1} colour`} id={`${base}-c${j}`} className={selCls} value={sf.colour ?? "medium"} disabled={disabled} onChange={(e) => set(j, { colour: e.target.value })}>
+                    {COLOURS.map((c) => (
+                      <option key={c} value={c}>
+                        {c}
+                      </option>
+                    ))}
+                  </select>
+                ) : (
+                  <span className="text-muted">no sun</span>
+                )}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <p className="text-[11px] text-muted">Sun allowance from the handbook table by colour: E/W walls, S wall, flat roof; NE, SE, SW, NW walls take the mean of their neighbours.</p>
     </fieldset>
   );
 }

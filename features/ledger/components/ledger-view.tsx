@@ -26,6 +26,7 @@ const KIND_COLOUR: Record<string, string> = {
   packaging: "oklch(0.75 0.09 120)",
   batch: "oklch(0.55 0.1 160)",
   respiration: "oklch(0.7 0.12 95)",
+  moisture: "oklch(0.72 0.08 220)",
   people: "oklch(0.7 0.12 60)",
   lights: "oklch(0.8 0.12 85)",
   machinery: "oklch(0.6 0.1 40)",

@@ -10,6 +10,7 @@ import type { InstalledPlantRaw } from "../installed";
 
 const cell = "border-t border-line px-2 py-1 align-top";
 const intIn = "w-12 rounded border border-line bg-surface px-1 py-0.5 text-right font-mono text-sm tabular-nums";
+const selIn = "rounded border border-line bg-surface px-1 py-0.5 text-xs";
 const numIn = "w-24 rounded border border-line bg-surface px-1.5 py-0.5 text-right font-mono text-sm tabular-nums";
 
 /** A number typed in display units (decimal comma accepted); NaN when it is not a number. */
@@ -70,6 +71,7 @@ export function InstalledPlant({ ws, facilityId, unitSystem: s, canEdit, recorde
       <span className="font-mono tabular-nums">{String(value)}</span>
     );
   const showNum = (v: number, digits: number) => fmt.number(v, digits);
+  const twoStage = new Set(d.twoStageCircuits ?? []);
 
   return (
     <section aria-labelledby="installed-h" className="flex flex-col gap-3 rounded border border-line p-3">
@@ -121,7 +123,7 @@ export function InstalledPlant({ ws, facilityId, unitSystem: s, canEdit, recorde
       {!shown ? (
         <p className="text-sm text-muted">{canEdit ? "Nothing recorded yet: propose it from the design, correct the ratings, and save." : "A designer has not recorded the installed plant yet."}</p>
       ) : (
-        <div key={generation} className="grid grid-cols-1 gap-3 xl:grid-cols-3">
+        <div key={generation} className="grid grid-cols-1 gap-3 2xl:grid-cols-3">
           <table className="text-sm">
             <caption className="text-left text-xs font-semibold">Evaporators</caption>
             <thead className="text-left text-xs text-muted">
@@ -130,6 +132,8 @@ export function InstalledPlant({ ws, facilityId, unitSystem: s, canEdit, recorde
                 <th className="px-2 font-medium">Units</th>
                 <th className="px-2 font-medium">Per unit ({L.power_refrigeration})</th>
                 <th className="px-2 font-medium">at TD ({L.tempDiff})</th>
+                <th className="px-2 font-medium">Rated feed · on site</th>
+                <th className="px-2 font-medium">Frost loss (%)</th>
               </tr>
             </thead>
             <tbody>
@@ -147,6 +151,30 @@ export function InstalledPlant({ ws, facilityId, unitSystem: s, canEdit, recorde
                       : showNum(convert.powerToDisplay(e.ratedCapacityWPerUnit, s), 1)}
                   </td>
                   <td className={`${cell} font-mono`}>{showNum(convert.tempDiffToDisplay(e.rating.tdK, s), 1)}</td>
+                  <td className={cell}>
+                    {editing ? (
+                      <span className="inline-flex items-center gap-1">
+                        <select aria-label={`${e.tag} rated feed`} className={selIn} defaultValue={e.rating.feed} onChange={(ev) => set((x) => void (x.evaporators[i].rating.feed = ev.target.value as "dx" | "pumped"))}>
+                          <option value="dx">DX</option>
+                          <option value="pumped">pumped</option>
+                        </select>
+                        <select aria-label={`${e.tag} feed on site`} className={selIn} defaultValue={e.siteFeed ?? ""} onChange={(ev) => set((x) => { const v = ev.target.value; if (v === "dx" || v === "pumped") x.evaporators[i].siteFeed = v; else delete x.evaporators[i].siteFeed; })}>
+                          <option value="">as designed</option>
+                          <option value="dx">DX</option>
+                          <option value="pumped">pumped</option>
+                        </select>
+                      </span>
+                    ) : (
+                      <span className="text-xs">{e.rating.feed} · {e.siteFeed ?? "as designed"}</span>
+                    )}
+                  </td>
+                  <td className={cell}>
+                    {editing ? (
+                      <input aria-label={`${e.tag} frost loss, %`} className={intIn} inputMode="decimal" placeholder="auto" defaultValue={e.frostCapacityLoss === undefined ? "" : String(e.frostCapacityLoss * 100)} onBlur={(ev) => set((x) => { const t = ev.target.value.trim(); if (t === "") delete x.evaporators[i].frostCapacityLoss; else x.evaporators[i].frostCapacityLoss = parse(t) / 100; })} />
+                    ) : (
+                      <span className="font-mono text-xs">{e.frostCapacityLoss === undefined ? "auto" : showNum(e.frostCapacityLoss * 100, 0)}</span>
+                    )}
+                  </td>
                 </tr>
               ))}
             </tbody>
@@ -157,6 +185,7 @@ export function InstalledPlant({ ws, facilityId, unitSystem: s, canEdit, recorde
               <tr>
                 <th className="px-2 font-medium">Tag · circuit</th>
                 <th className="px-2 font-medium">Units</th>
+                <th className="px-2 font-medium">Stage</th>
                 <th className="px-2 font-medium">Swept volume per unit (m³/h)</th>
               </tr>
             </thead>
@@ -168,6 +197,20 @@ export function InstalledPlant({ ws, facilityId, unitSystem: s, canEdit, recorde
                   </td>
                   <td className={cell}>
                     <span className="inline-flex items-center gap-1">{numCell(c.units, (v) => set((x) => void (x.compressors[i].units = v)), `${c.tag} units`, true)} <span className="text-xs text-muted">standby</span> {numCell(c.standbyUnits, (v) => set((x) => void (x.compressors[i].standbyUnits = v)), `${c.tag} standby units`, true)}</span>
+                  </td>
+                  <td className={cell}>
+                    {twoStage.has(c.circuitId) ? (
+                      editing ? (
+                        <select aria-label={`${c.tag} stage`} className={selIn} defaultValue={c.stage ?? "low"} onChange={(ev) => set((x) => void (x.compressors[i].stage = ev.target.value as "low" | "high"))}>
+                          <option value="low">low (booster)</option>
+                          <option value="high">high</option>
+                        </select>
+                      ) : (
+                        <span className="text-xs">{c.stage ?? "low"}</span>
+                      )
+                    ) : (
+                      <span className="text-xs text-muted">single</span>
+                    )}
                   </td>
                   <td className={cell}>
                     {c.rating.by === "swept-volume"

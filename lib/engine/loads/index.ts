@@ -53,6 +53,6 @@ export { chenEnthalpyKJkg, iceFraction, productHeatSplit, PACKAGING_CP_KJKGK } f
 export { respirationWPerKg } from "./respiration";
 export { plankFreezingTimeS, phamFreezingTimeS, airSurfaceCoefficientWm2K, effectiveSurfaceCoefficientWm2K, SHAPE_FACTORS } from "./freezing";
 export { gosneyOlamaFullyOpen, doorwayOpenTimeFactor, defaultFlowFactor, PROTECTION_EFFECTIVENESS, DOCK_SEAL_EFFECTIVENESS } from "./infiltration";
-export { uValue, solarAllowanceK, SOLAR_ALLOWANCE_K, INSIDE_FILM_M2KW, OUTSIDE_FILM_M2KW } from "./transmission";
+export { uValue, solarAllowanceK, solarAllowanceByFacing, WALL_ORIENTATIONS, SOLAR_ALLOWANCE_K, INSIDE_FILM_M2KW, OUTSIDE_FILM_M2KW } from "./transmission";
 export { sitePressurePa, airFromRH, airFromWetBulb } from "./psychro";
 export type { AirState } from "./psychro";

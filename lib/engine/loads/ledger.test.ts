@@ -134,9 +134,10 @@ describe("product pull-down on the 24-hour basis", () => {
   });
 
   it("arrivals by hour make a peak hour above the daily average", () => {
-    // 1000 kg/day of lean beef chilled 20 → 2 °C, all arriving at 06:00, 12-h pull-down:
-    // Chen c_u = 3.5566 kJ/(kg·K) (product.test.ts) → 64 020 kJ/day; 06:00–17:00 carry
-    // 64 020/(12·3.6) = 1481.9 W each, the other hours nothing; daily average 741.0 W.
+    // 1000 kg/day of lean beef (sirloin: x_wo 0.7176, x_p 0.22) chilled 20 → 2 °C, all arriving
+    // at 06:00, 12-h pull-down: Chen c_u = 4.19 − 2.30·0.2824 − 0.628·0.2824³ = 3.5263 kJ/(kg·K)
+    // → 63 474 kJ/day; 06:00–17:00 carry 63 474/(12·3.6) = 1469.3 W each, the other hours
+    // nothing; daily average 734.7 W.
     const arrivals = new Array(24).fill(0);
     arrivals[6] = 1;
     const r = ledger(
@@ -144,10 +145,10 @@ describe("product pull-down on the 24-hour basis", () => {
       [],
       { pullDownBasis: "dailyEnergy" },
     ).rooms[0];
-    expect(r.averageLoadW).toBeCloseTo(741.0, 0);
-    expect(r.peakHourW).toBeCloseTo(1481.9, 0);
+    expect(r.averageLoadW).toBeCloseTo(734.7, 0);
+    expect(r.peakHourW).toBeCloseTo(1469.3, 0);
     expect(r.hourly[5]).toBeCloseTo(0, 9);
-    expect(r.hourly[17]).toBeCloseTo(1481.9, 0);
+    expect(r.hourly[17]).toBeCloseTo(1469.3, 0);
     expect(r.hourly[18]).toBeCloseTo(0, 9);
     expect(r.peakHourW).toBeGreaterThan(r.averageLoadW);
   });
@@ -186,14 +187,16 @@ describe("product pull-down on the 24-hour basis", () => {
   });
 
   it("freezing case: lean beef +5 → −18 °C in a freezer", () => {
-    // 1000 kg/day × 248.58 kJ/kg (hand-worked Chen split, product.test.ts) over 24 h
-    // = 248 580 kJ / 86 400 s = 2877.1 W, of which latent 193.94 kJ/kg → 2244.7 W.
+    // Lean beef (sirloin, x_wo 0.7176, x_p 0.22, t_f −1.7 °C): Chen split as in product.test.ts —
+    // above 3.5263·6.7 = 23.63, latent 333.6·(0.7176 − 0.088)·(1 − 1.7/18) = 190.20, below
+    // (1.55 + 1.26·0.2824)·16.3 = 31.06 → 244.89 kJ/kg; 1000 kg/day over 24 h = 2834.4 W, of
+    // which latent 2201.4 W.
     const r = ledger([
       room({ setPointC: -25, products: [{ commodityId: "beef-lean", massKgPerDay: 1000, enteringTempC: 5, finalTempC: -18, pullDownHours: 24 }] }),
     ]).rooms[0];
-    expect(r.averageLoadW).toBeCloseTo(2877.1, 0);
+    expect(r.averageLoadW).toBeCloseTo(2834.4, 0);
     const latent = r.components.find((c) => c.label.includes("latent heat of freezing"))!;
-    expect(latent.powerW).toBeCloseTo(2244.7, 0);
+    expect(latent.powerW).toBeCloseTo(2201.4, 0);
   });
 
   it("packaging adds m·c·ΔT", () => {
@@ -210,7 +213,7 @@ describe("product pull-down on the 24-hour basis", () => {
 
 describe("batch, respiration and ventilation in the ledger", () => {
   it("batch freezer load = batch heat / batch time", () => {
-    // 1000 kg lean beef +5 → −18 °C: 248 580 kJ over a stated 10 h batch → 6905 W.
+    // 1000 kg lean beef +5 → −18 °C: 244 889 kJ (above) over a stated 10 h batch → 6802.5 W.
     const r = ledger([
       room({
         kind: "blast",
@@ -218,13 +221,13 @@ describe("batch, respiration and ventilation in the ledger", () => {
         batch: { commodityId: "beef-lean", massKg: 1000, thicknessM: 0.1, enteringTempC: 5, finalTempC: -18, batchHours: 10 },
       }),
     ]).rooms[0];
-    expect(r.components.find((c) => c.kind === "batch")!.powerW).toBeCloseTo(6905, 0);
+    expect(r.components.find((c) => c.kind === "batch")!.powerW).toBeCloseTo(6802.5, 0);
   });
 
   it("a batch longer than a day, every other day", () => {
-    // 1000 kg lean beef, 248 580 kJ per batch (product.test.ts) over a stated 30 h, one batch
-    // every two days (0.5/day): daily energy 0.5·248 580/3.6 = 34 525 Wh → hourly mean 1438.5 W
-    // on the physical profile; the rate basis carries 248 580e3/(30·3600) = 2301.7 W.
+    // 1000 kg lean beef, 244 889 kJ per batch (above) over a stated 30 h, one batch every two
+    // days (0.5/day): daily energy 0.5·244 889/3.6 = 34 012 Wh → hourly mean 1417.2 W on the
+    // physical profile; the rate basis carries 244 889e3/(30·3600) = 2267.5 W.
     const r = ledger([
       room({
         kind: "blast",
@@ -232,8 +235,8 @@ describe("batch, respiration and ventilation in the ledger", () => {
         batch: { commodityId: "beef-lean", massKg: 1000, thicknessM: 0.3, enteringTempC: 5, finalTempC: -18, batchHours: 30, batchesPerDay: 0.5 },
       }),
     ]).rooms[0];
-    expect(r.hourly.reduce((a, b) => a + b, 0) / 24).toBeCloseTo(1438.5, 0);
-    expect(r.components.find((c) => c.kind === "batch")!.powerW).toBeCloseTo(2301.7, 0);
+    expect(r.hourly.reduce((a, b) => a + b, 0) / 24).toBeCloseTo(1417.2, 0);
+    expect(r.components.find((c) => c.kind === "batch")!.powerW).toBeCloseTo(2267.5, 0);
   });
 
   it("respiration from pallet positions, and the ripening multiplier", () => {

@@ -11,6 +11,7 @@ import {
 } from "./infiltration";
 import { PACKAGING_CP_KJKGK, packagingHeatKJ, productHeatSplit } from "./product";
 import { airFromRH, airFromWetBulb, relativeHumidityPct, sitePressurePa, type AirState } from "./psychro";
+import { airVapourPressurePa, evaporationHeatKJkg, surfaceVapourPressurePa } from "./moisture";
 import { respirationWPerKg } from "./respiration";
 import {
   ledgerInputSchema,
@@ -25,7 +26,7 @@ import {
 import { INSIDE_FILM_M2KW, defaultOutsideFilm, solarAllowanceK, surfaceAreaM2, transmissionW, uValue } from "./transmission";
 import type { LoadComponent, LoadComponentKind, LoadTrace } from "./types";
 
-export const ENGINE_VERSION = "loads-1.0.0";
+export const ENGINE_VERSION = "loads-1.1.0";
 
 const HANDBOOK = "ASHRAE Handbook—Refrigeration, refrigerated-facility loads chapter";
 
@@ -58,6 +59,8 @@ export interface LedgerContext {
    * is counted on both sides.
    */
   sharedSurfaces: ReadonlyMap<string, ReadonlyArray<SharedSurface>>;
+  /** Doors set in a wall, by `${roomId}:${surfaceIndex}` of the room the wall is entered in. */
+  doorsInWall: ReadonlyMap<string, ReadonlyArray<{ door: DoorInput; index: number }>>;
 }
 
 export interface SharedSurface {
@@ -185,6 +188,28 @@ export function contextFromParsed(input: LedgerInput): LedgerContext {
       }
     });
   });
+  // Doors set in a wall: their area comes out of the wall's; more door than wall is refused.
+  const doorsInWall = new Map<string, { door: DoorInput; index: number }[]>();
+  input.doors.forEach((door, index) => {
+    if (!door.wall) return;
+    const key = `${door.wall.roomId}:${door.wall.surfaceIndex}`;
+    const list = doorsInWall.get(key) ?? [];
+    list.push({ door, index });
+    doorsInWall.set(key, list);
+    const ri = roomIndex.get(door.wall.roomId);
+    if (ri === undefined) fail(`doors.${index}.wall.roomId`, `no room with id "${door.wall.roomId}"`);
+    const room = input.rooms[ri];
+    const surface = room.surfaces[door.wall.surfaceIndex];
+    if (!surface || surface.kind !== "wall") fail(`doors.${index}.wall.surfaceIndex`, `room "${room.id}" has no wall at surfaces.${door.wall.surfaceIndex}`);
+    const wallM2 = surfaceAreaM2(surface, room, `rooms.${ri}.surfaces.${door.wall.surfaceIndex}`);
+    const doorsM2 = list.reduce((a, d) => a + d.door.widthM * d.door.heightM, 0);
+    if (doorsM2 > wallM2 * (1 + 1e-9)) {
+      fail(
+        `doors.${index}.wall`,
+        `the doors in wall rooms.${ri}.surfaces.${door.wall.surfaceIndex} (${list.map((d) => d.door.id).join(", ")}) add up to ${doorsM2.toFixed(2)} m², more than the wall's ${wallM2.toFixed(2)} m²: make the doors smaller or the wall larger`,
+      );
+    }
+  });
   const commodities = new Map<string, Commodity>();
   // `commodities` came after the first contract; inputs built by hand may not carry it.
   for (const c of input.commodities ?? []) commodities.set(c.id, buildCustomCommodity(c));
@@ -204,6 +229,7 @@ export function contextFromParsed(input: LedgerInput): LedgerContext {
     doorsByRoom,
     commodities,
     sharedSurfaces,
+    doorsInWall,
   };
 }
 
@@ -292,8 +318,60 @@ function packagingMassKg(p: PackagingInput, productKg: number): number {
   return (p.massFractionOfProduct ?? 0) * productKg;
 }
 
+const NO_DOORS: ReadonlyArray<{ door: DoorInput; index: number }> = [];
+
 /** Trace values are kept at full precision; the UI formats them. */
 const round = (x: number) => x;
+
+/**
+ * The moisture a fresh product loses (transpiration, ṁ = k_t·m·(p_s − p_a)) evaporates from the
+ * produce and condenses (or frosts) on the coil: its heat ṁ·h_fg moves from the sensible to the
+ * latent side of the room's load. The evaporation is driven by heat already in the ledger
+ * (respiration, the product's own pull-down, the air), so the line adds latent load and takes
+ * the same off the sensible side: its total is zero, the sensible heat ratio falls.
+ * `excessOverC`: for a warm stream, only the excess over the loss at that temperature.
+ */
+function moistureLine(
+  c: Commodity,
+  massKg: number,
+  productTempC: number,
+  hoursPerDay: number,
+  air: AirState,
+  sourceId: string,
+  what: "stored" | "pull-down",
+  excessOverC?: number,
+): LoadComponent {
+  const kt = c.transpirationNgKgSPa as number;
+  // ṁ = k_t·m·(p_s − p_a), each pressure computed once (this runs inside the plant's loop).
+  const pA = airVapourPressurePa(air);
+  const pS = surfaceVapourPressurePa(productTempC);
+  const rate = (ps: number) => Math.max(0, kt * 1e-12 * massKg * (ps - pA));
+  let kgS = rate(pS);
+  if (excessOverC !== undefined) kgS = Math.max(0, kgS - rate(surfaceVapourPressurePa(excessOverC)));
+  const kgPerDay = kgS * 3600 * hoursPerDay;
+  const hfg = evaporationHeatKJkg(productTempC);
+  const latentW = (kgPerDay * hfg * 1000) / 86400;
+  const trace: LoadTrace = {
+    method: `Product moisture loss (transpiration)${what === "pull-down" ? " during pull-down, excess over storage" : ""}`,
+    source: `ASHRAE Handbook—Refrigeration, thermal properties of foods: transpiration ṁ = k_t·(p_s − p_a); vapour pressures Hyland–Wexler (ASHRAE Fundamentals); k_t: ${c.sources.transpirationNgKgSPa}`,
+    inputs: {
+      commodity: c.id,
+      massKg: round(massKg),
+      productTempC: round(productTempC),
+      transpirationNgKgSPa: kt,
+      surfaceVapourPressurePa: round(pS),
+      airVapourPressurePa: round(pA),
+      hoursPerDay,
+      moistureLossKgPerDay: round(kgPerDay),
+      weightLossPctPerDay: massKg > 0 ? round((100 * kgPerDay) / massKg) : 0,
+      evaporationHeatKJkg: round(hfg),
+      effect: "latent load on the coil; the same heat comes off the sensible side (total unchanged)",
+    },
+    formula: "ṁ = k_t·m·(p_s(T_product) − p_a); q_latent = ṁ·h_fg; q_sensible = −q_latent",
+  };
+  const line = component("moisture", `${c.name}: moisture loss${what === "pull-down" ? " during pull-down" : ""}`, 0, latentW, trace, sourceId);
+  return line;
+}
 
 // ---------------------------------------------------------------------------------------------
 
@@ -323,9 +401,50 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
   const multiplier = room.ripening?.chargeActive ? room.ripening.respirationMultiplier : 1;
 
   // Transmission ---------------------------------------------------------------------------
+  // Door leaves set in a wall: their own line at their own U (default the wall's), same temperatures.
+  const doorLeaves = (doors: ReadonlyArray<{ door: DoorInput; index: number }>, wallU: number, tOutC: number, wallLabel: string, solarK: number) => {
+    for (const { door, index } of doors) {
+      const a = door.widthM * door.heightM;
+      const u = door.uValueWm2K ?? wallU;
+      const qW = transmissionW(u, a, tOutC, tRoom);
+      const ignored = qW < 0 && ignoreColder;
+      const powerW = ignored ? 0 : qW;
+      if (qW < 0) heatOutflowW -= qW;
+      components.push(
+        component(
+          "transmission",
+          `door ${door.name ?? door.id} (leaf, in ${wallLabel})`,
+          powerW,
+          0,
+          {
+            method: "Transmission through a door leaf set in a wall, q = U·A·ΔT",
+            source: `${HANDBOOK}; the door's area is taken out of the wall's`,
+            inputs: {
+              door: `doors.${index}`,
+              doorAreaM2: round(a),
+              uValueWm2K: round(u),
+              uFrom: door.uValueWm2K === undefined ? "the wall's U (no door U given)" : "door leaf U given",
+              otherSideTempC: round(tOutC - solarK),
+              solarAllowanceK: solarK,
+              roomTempC: tRoom,
+              computedW: round(qW),
+              colderSide: ignored ? "heat to a colder side ignored (option colderNeighbour = ignore)" : "counted",
+            },
+            formula: "q = U_door·A_door·(T_other + solar − T_room)",
+          },
+          door.id,
+        ),
+      );
+      spreadPeriodic(hourly, powerW * 24, 0, 24);
+    }
+  };
+
   room.surfaces.forEach((s, j) => {
     const field = `${at}.surfaces.${j}`;
-    const areaM2 = surfaceAreaM2(s, room, field);
+    const inWall = ctx.doorsInWall?.size ? (ctx.doorsInWall.get(`${room.id}:${j}`) ?? NO_DOORS) : NO_DOORS;
+    const grossM2 = surfaceAreaM2(s, room, field);
+    const doorsM2 = inWall.reduce((a, d) => a + d.door.widthM * d.door.heightM, 0);
+    const areaM2 = Math.max(0, grossM2 - doorsM2);
     const rsi = s.insideFilmM2KW ?? INSIDE_FILM_M2KW;
     const rse = s.outsideFilmM2KW ?? defaultOutsideFilm(s);
     const u = uValue(s.layers, rsi, rse, s.uValueWm2K);
@@ -365,6 +484,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
           source: `${HANDBOOK}; U = 1/(R_si + ΣL/λ + R_se), ASHRAE Handbook—Fundamentals; sun allowance table (from memory)`,
           inputs: {
             areaM2: round(areaM2),
+            ...(inWall.length ? { grossAreaM2: round(grossM2), doorsAreaM2: round(doorsM2), doorsInWall: inWall.map((d) => d.door.id).join(", ") } : {}),
             uValueWm2K: round(u.uValueWm2K),
             uMethod: u.method,
             insideFilmM2KW: s.uValueWm2K === undefined ? rsi : "in U",
@@ -375,18 +495,22 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
             computedW: round(qW),
             colderSide: ignored ? "heat to a colder side ignored (option colderNeighbour = ignore)" : "counted",
           },
-          formula: "q = U·A·(T_other + solar − T_room)",
+          formula: inWall.length ? "q = U·(A_gross − ΣA_doors)·(T_other + solar − T_room)" : "q = U·A·(T_other + solar − T_room)",
         },
         s.id,
       ),
     );
     spreadPeriodic(hourly, powerW * 24, 0, 24);
+    doorLeaves(inWall, u.uValueWm2K, tOutC, label, solarK);
   });
   // The same transmission seen from this room, for shared surfaces entered in a neighbour.
   for (const m of ctx.sharedSurfaces.get(room.id) ?? []) {
     const s = m.surface;
     const field = `rooms.${m.ownerIndex}.surfaces.${m.surfaceIndex}`;
-    const areaM2 = surfaceAreaM2(s, m.owner, field);
+    const inWall = ctx.doorsInWall?.size ? (ctx.doorsInWall.get(`${m.owner.id}:${m.surfaceIndex}`) ?? NO_DOORS) : NO_DOORS;
+    const grossM2 = surfaceAreaM2(s, m.owner, field);
+    const doorsM2 = inWall.reduce((a, d) => a + d.door.widthM * d.door.heightM, 0);
+    const areaM2 = Math.max(0, grossM2 - doorsM2);
     const rsi = s.insideFilmM2KW ?? INSIDE_FILM_M2KW;
     const rse = s.outsideFilmM2KW ?? defaultOutsideFilm(s);
     const u = uValue(s.layers, rsi, rse, s.uValueWm2K);
@@ -407,6 +531,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
           inputs: {
             enteredIn: `${field} (room ${m.owner.id})`,
             areaM2: round(areaM2),
+            ...(inWall.length ? { grossAreaM2: round(grossM2), doorsAreaM2: round(doorsM2), doorsInWall: inWall.map((d) => d.door.id).join(", ") } : {}),
             uValueWm2K: round(u.uValueWm2K),
             uMethod: u.method,
             otherSideTempC: otherC,
@@ -420,6 +545,7 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
       ),
     );
     spreadPeriodic(hourly, powerW * 24, 0, 24);
+    doorLeaves(inWall, u.uValueWm2K, otherC, `${s.kind} shared with room ${m.owner.id}`, 0);
   }
 
   // Door infiltration -------------------------------------------------------------------------
@@ -639,6 +765,12 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
         dailyKJ += wh * 3.6;
       }
     }
+    // Warm produce also loses moisture faster during its pull-down: the excess over the rate
+    // at the room temperature (which the stored mass carries) for the pull-down hours.
+    if ((c.group === "fruit" || c.group === "vegetable") && chilled && p.massKgPerDay > 0 && (c.transpirationNgKgSPa ?? 0) > 0) {
+      const meanC = (p.enteringTempC + tFinal) / 2;
+      if (meanC > tRoom) components.push(moistureLine(c, p.massKgPerDay, meanC, Math.min(p.pullDownHours, 24), air, p.id ?? `${j}`, "pull-down", tRoom));
+    }
     const dailyWh = dailyKJ / 3.6;
     if (p.arrivalsByHour) {
       const sum = p.arrivalsByHour.reduce((a, b) => a + b, 0);
@@ -688,6 +820,9 @@ export function computeRoomLoad(room: RoomInput, ctx: LedgerContext): RoomLoadRe
       ),
     );
     spreadPeriodic(hourly, powerW * 24, 0, 24);
+    if (c.transpirationNgKgSPa !== undefined && c.transpirationNgKgSPa > 0) {
+      components.push(moistureLine(c, massKg, tRoom, 24, air, `${j}`, "stored"));
+    }
   });
 
   // Batch freezing ------------------------------------------------------------------------------

@@ -90,7 +90,7 @@ export const surfaceSchema = z
     label: z.string().optional(),
     kind: z.enum(["wall", "roof", "ceiling", "floor"]),
     /** Compass direction a wall faces (solar allowance); roofs are horizontal. */
-    orientation: z.enum(["N", "E", "S", "W"]).optional(),
+    orientation: z.enum(["N", "NE", "E", "SE", "S", "SW", "W", "NW"]).optional(),
     /** Which room dimension a wall runs along, when `areaM2` is not given (area = that × height). */
     along: z.enum(["length", "width"]).optional(),
     areaM2: positive(1e6, "m²").optional(),
@@ -290,6 +290,19 @@ export const doorSchema = z
     protectionEffectiveness: range(0, 0.99).optional(),
     /** Overrides the doorway flow factor Df (0.8 above ~11 K, 1.1 below, from memory). */
     flowFactor: range(0.1, 1.5).optional(),
+    /**
+     * The wall the door sits in: a room the door joins and the index of a wall in that room's
+     * `surfaces`. The door's area is taken out of that wall's area (in both rooms when the
+     * wall is shared) and counted at the door leaf's own U-value.
+     */
+    wall: z
+      .object({
+        roomId: z.string().min(1, "must name one of the two rooms the door joins"),
+        surfaceIndex: z.number().int("must be a whole number (the wall's position in the room's surfaces, from 0)").min(0, "must be 0 or more"),
+      })
+      .optional(),
+    /** Door leaf U-value, W/(m²·K) (films included); default: the wall's own U-value. */
+    uValueWm2K: positive(20, "W/(m²·K)").optional(),
     dock: z
       .object({
         seal: z.enum(["none", "seal", "shelter"]),
@@ -339,6 +352,8 @@ export const customCommoditySchema = z
         z.object({ points: z.array(z.tuple([range(-5, 40, "°C"), positive(5000, "mW/kg")])).min(1, "give at least one point") }),
       ])
       .optional(),
+    /** Transpiration coefficient k_t, ng/(kg·s·Pa) (fresh produce: moisture loss in storage). */
+    transpirationNgKgSPa: range(0, 100_000, "ng/(kg·s·Pa)").optional(),
     source: z.string().min(1, "name where the data come from"),
   })
   .superRefine((c, ctx) => {
@@ -391,6 +406,22 @@ export const ledgerInputSchema = z
         }
       }),
     );
+    input.doors.forEach((d, i) => {
+      if (!d.wall) return;
+      const at = ["doors", i, "wall"];
+      if (!d.sides.includes(d.wall.roomId)) {
+        ctx.addIssue({ code: "custom", path: [...at, "roomId"], message: `must be one of the rooms the door joins (${d.sides.filter((x) => x !== "outdoors").join(", ")})` });
+        return;
+      }
+      const room = input.rooms.find((r) => r.id === d.wall!.roomId);
+      if (!room) return;
+      const surface = room.surfaces[d.wall.surfaceIndex];
+      if (!surface) {
+        ctx.addIssue({ code: "custom", path: [...at, "surfaceIndex"], message: `room "${room.id}" has ${room.surfaces.length} surfaces: must be between 0 and ${room.surfaces.length - 1}` });
+      } else if (surface.kind !== "wall") {
+        ctx.addIssue({ code: "custom", path: [...at, "surfaceIndex"], message: `surface ${d.wall.surfaceIndex} of room "${room.id}" is a ${surface.kind}: a door sits in a wall` });
+      }
+    });
     input.doors.forEach((d, i) =>
       d.sides.forEach((side, k) => {
         if (side !== "outdoors" && !ids.has(side)) {

@@ -39,3 +39,39 @@ describe("solar allowance", () => {
     expect(solarAllowanceK(s({ orientation: "E", otherSide: { roomId: "x" } }), "north")).toBe(0);
   });
 });
+
+describe("solar allowance for every facing", () => {
+  const s = (o: object) => surfaceSchema.parse({ kind: "wall", areaM2: 1, uValueWm2K: 0.2, otherSide: "outdoors", ...o });
+  it("cardinal walls and flat roofs follow the handbook's sun-effect table for each colour", () => {
+    // ASHRAE Handbook—Refrigeration, "Refrigerated-facility loads", table "Allowance for sun
+    // effect" (from memory): E/S/W wall and flat roof, K — dark 5/3/5/11, medium 4/3/4/9, light 3/2/3/5.
+    const table = { dark: [5, 3, 5, 11], medium: [4, 3, 4, 9], light: [3, 2, 3, 5] } as const;
+    for (const [colour, [e, south, w, roof]] of Object.entries(table)) {
+      expect(solarAllowanceK(s({ orientation: "E", colour }), "north")).toBe(e);
+      expect(solarAllowanceK(s({ orientation: "S", colour }), "north")).toBe(south);
+      expect(solarAllowanceK(s({ orientation: "W", colour }), "north")).toBe(w);
+      expect(solarAllowanceK(s({ orientation: "N", colour }), "north")).toBe(0);
+      expect(solarAllowanceK(s({ kind: "roof", colour }), "north")).toBe(roof);
+    }
+  });
+  it("intercardinal walls take the mean of their two neighbours (common practice), N/S swapped in the south", () => {
+    expect(solarAllowanceK(s({ orientation: "NE", colour: "dark" }), "north")).toBe(2.5);
+    expect(solarAllowanceK(s({ orientation: "SE", colour: "dark" }), "north")).toBe(4);
+    expect(solarAllowanceK(s({ orientation: "SW", colour: "light" }), "north")).toBe(2.5);
+    expect(solarAllowanceK(s({ orientation: "NW", colour: "medium" }), "north")).toBe(2);
+    // Southern hemisphere: a NE wall faces the equator the way a SE wall does in the north.
+    expect(solarAllowanceK(s({ orientation: "NE", colour: "dark" }), "south")).toBe(4);
+    expect(solarAllowanceK(s({ orientation: "SW", colour: "dark" }), "south")).toBe(2.5);
+  });
+  it("every orientation the schema allows computes, and a wrong one is refused naming the allowed values", () => {
+    for (const o of ["N", "NE", "E", "SE", "S", "SW", "W", "NW"]) {
+      const v = solarAllowanceK(s({ orientation: o, colour: "medium" }), "north");
+      expect(v).toBeGreaterThanOrEqual(0);
+      expect(v).toBeLessThanOrEqual(4);
+    }
+    const bad = surfaceSchema.safeParse({ kind: "wall", areaM2: 1, uValueWm2K: 0.2, otherSide: "outdoors", orientation: "NNE" });
+    expect(bad.success).toBe(false);
+    expect(bad.error!.issues[0].path).toEqual(["orientation"]);
+    expect(bad.error!.issues[0].message).toMatch(/NE/);
+  });
+});

@@ -31,33 +31,55 @@ export function uValue(
 }
 
 type Colour = "light" | "medium" | "dark";
-type Facing = "E" | "S" | "W" | "N" | "roof";
+/** The compass directions a wall can face. */
+export const WALL_ORIENTATIONS = ["N", "NE", "E", "SE", "S", "SW", "W", "NW"] as const;
+export type Orientation = (typeof WALL_ORIENTATIONS)[number];
+type Cardinal = "N" | "E" | "S" | "W";
 
 /**
  * Allowance for sun effect, K added to the outdoor dry bulb, by surface colour and facing
- * (ASHRAE Handbook—Refrigeration, refrigerated-facility loads chapter, "allowance for sun
- * effect" table, from memory). South is the equator-facing wall in the northern hemisphere.
+ * (ASHRAE Handbook—Refrigeration, "Refrigerated-facility loads" chapter, table "Allowance for
+ * sun effect": east, south and west walls and flat roofs; north walls get none; from memory —
+ * the same values are in the SI and I-P editions, °F 8/5/8/20 dark, 6/4/6/15 medium, 4/2/4/9
+ * light). South is the equator-facing wall in the northern hemisphere.
  */
-export const SOLAR_ALLOWANCE_K: Record<Colour, Record<Facing, number>> = {
+export const SOLAR_ALLOWANCE_K: Record<Colour, Record<Cardinal | "roof", number>> = {
   dark: { E: 5, S: 3, W: 5, N: 0, roof: 11 },
   medium: { E: 4, S: 3, W: 4, N: 0, roof: 9 },
   light: { E: 3, S: 2, W: 3, N: 0, roof: 5 },
 };
 
 /**
+ * The intercardinal walls (NE, SE, SW, NW), which the handbook table does not list, take the
+ * mean of their two cardinal neighbours (a Rimeplan rule, common practice: the daily solar
+ * gain on a vertical wall varies smoothly with its azimuth, and the daily clear-sky totals of
+ * the ASHRAE Fundamentals tables put NE/NW about midway between N and E/W and SE/SW close to
+ * the mean of E/W and S). "roof" is a flat roof (or ceiling under it) open to the sky.
+ */
+export function solarAllowanceByFacing(colour: Colour, facing: Orientation | "roof"): number {
+  const t = SOLAR_ALLOWANCE_K[colour];
+  if (facing === "roof" || facing.length === 1) return t[facing as Cardinal | "roof"];
+  const [a, b] = [facing[0] as Cardinal, facing[1] as Cardinal];
+  return (t[a] + t[b]) / 2;
+}
+
+/** In the southern hemisphere the equator-facing side is the north: N and S swap in every facing. */
+function towardsEquator(o: Orientation, hemisphere: "north" | "south"): Orientation {
+  if (hemisphere === "north") return o;
+  return o.replace(/[NS]/, (c) => (c === "N" ? "S" : "N")) as Orientation;
+}
+
+/**
  * The solar allowance for a sunlit surface: walls by orientation (N/S swapped in the southern
- * hemisphere, so the equator-facing wall gets the "south" value), roofs as flat roofs.
- * Surfaces not facing outdoors, floors and walls without an orientation get none.
+ * hemisphere, so the equator-facing wall gets the "south" value), roofs as flat roofs by
+ * colour. Surfaces not facing outdoors, floors and walls without an orientation get none.
  */
 export function solarAllowanceK(surface: SurfaceInput, hemisphere: "north" | "south"): number {
   if (surface.solarAllowanceK !== undefined) return surface.solarAllowanceK;
   if (surface.otherSide !== "outdoors") return 0;
-  const table = SOLAR_ALLOWANCE_K[surface.colour];
-  if (surface.kind === "roof" || surface.kind === "ceiling") return table.roof;
+  if (surface.kind === "roof" || surface.kind === "ceiling") return solarAllowanceByFacing(surface.colour, "roof");
   if (surface.kind !== "wall" || surface.orientation === undefined) return 0;
-  let o: Facing = surface.orientation;
-  if (hemisphere === "south") o = o === "N" ? "S" : o === "S" ? "N" : o;
-  return table[o];
+  return solarAllowanceByFacing(surface.colour, towardsEquator(surface.orientation, hemisphere));
 }
 
 /** Default outside film for what is on the other side. */

@@ -16,6 +16,7 @@ export type LoadComponentKind =
   | "packaging"
   | "batch"
   | "respiration"
+  | "moisture"
   | "people"
   | "lights"
   | "machinery"

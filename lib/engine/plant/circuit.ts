@@ -118,6 +118,18 @@ export interface CircuitResult {
   roomEntropyW_K: number;
   /** Liquid-pump input taken up by the refrigerant (pumped feed), W electrical. */
   pumpPowerW: number;
+  /**
+   * Hot-gas defrost supplied by this circuit's compressors: the 24-h mean of the heat its
+   * evaporators' hot-gas defrosts draw, carried as a load at the suction (the gas condensed in
+   * the coil returns to the low side and is pumped again), with its entropy term and, per
+   * evaporator, where it comes from. Not refrigeration: COP excludes it.
+   */
+  hotGasDefrost: {
+    heatW: number;
+    entropyW_K: number;
+    byEvaporator: Array<{ id: string; tag: string; roomId: string; heaterW: number; minutesPerDefrost: number; defrostsPerDay: number; meanW: number }>;
+    formula: string;
+  };
   massFlowKgS: number;
   suctionVolumeFlowM3s: number;
   sweptVolumeM3s: number;
@@ -364,6 +376,26 @@ function computeOneCircuit(
     evapTemps.push({ tC, field });
   }
   const refrigerationW = reservoirs.reduce((a, r) => a + r.heatW, 0);
+  // Hot-gas defrosts of this circuit's evaporators: the compressors supply the gas (the
+  // heat-equivalent × minutes × defrosts, as a 24-h mean), taken up at the room the coil sits in.
+  const hotGas: CircuitResult["hotGasDefrost"] = {
+    heatW: 0,
+    entropyW_K: 0,
+    byEvaporator: [],
+    formula: "q_hg = Σ P_defrost·(min/60)·n_defrosts / 24 h, carried by the circuit's compressors",
+  };
+  for (const e of evaps) {
+    const d = e.defrost;
+    if (d.type !== "hot-gas" || !(d.heaterW > 0)) continue;
+    const room = ctx.rooms.get(e.roomId);
+    if (!room) continue;
+    const meanW = (d.heaterW * (d.minutesPerDefrost / 60) * d.defrostsPerDay) / 24;
+    if (!(meanW > 0)) continue;
+    hotGas.heatW += meanW;
+    hotGas.entropyW_K += meanW / (room.setPointC + K0);
+    hotGas.byEvaporator.push({ id: e.id, tag: e.tag, roomId: e.roomId, heaterW: d.heaterW, minutesPerDefrost: d.minutesPerDefrost, defrostsPerDay: d.defrostsPerDay, meanW });
+    reservoirs.push({ heatW: meanW, tK: room.setPointC + K0 });
+  }
   if (refrigerationW <= 0) {
     warnings.push({ code: "CIRCUIT_NO_LOAD", severity: "info", message: "no evaporator or cascade load on this circuit: nothing computed", ref });
     return undefined;
@@ -435,7 +467,7 @@ function computeOneCircuit(
     superheatK,
     subcoolingK: c.subcoolingK,
     compressor: c.compressor,
-    loadW: refrigerationW + pumpPowerW,
+    loadW: refrigerationW + hotGas.heatW + pumpPowerW,
     coldReservoirs: reservoirs,
     sinkK: sink.sinkC + K0,
     intermediateK: c.intermediateC === undefined ? undefined : c.intermediateC + K0,
@@ -485,9 +517,11 @@ function computeOneCircuit(
   }
   const workW = cycle.shaftPowerW + pumpPowerW;
   const cop = refrigerationW / workW;
-  const tLeffK = refrigerationW / sRes;
+  // The Carnot bound applies to all the heat taken up, hot-gas defrost included.
+  const takenUpW = refrigerationW + hotGas.heatW;
+  const tLeffK = takenUpW / sRes;
   const copCarnot = spec.sinkK > tLeffK ? tLeffK / (spec.sinkK - tLeffK) : null;
-  if (!(clausiusW_K >= -1e-6 * scale) || (copCarnot !== null && cop > copCarnot * (1 + 1e-6)))
+  if (!(clausiusW_K >= -1e-6 * scale) || (copCarnot !== null && takenUpW / workW > copCarnot * (1 + 1e-6)))
     throw new PlantError(
       "SECOND_LAW_VIOLATION",
       `${c.tag}: COP ${cop.toFixed(3)} exceeds the Carnot COP ${copCarnot?.toFixed(3)} (S_gen ${clausiusW_K.toExponential(3)} W/K)`,
@@ -637,6 +671,7 @@ function computeOneCircuit(
     evaporatorRoomDutyW,
     roomEntropyW_K,
     pumpPowerW,
+    hotGasDefrost: hotGas,
     massFlowKgS: cycle.massFlowKgS,
     suctionVolumeFlowM3s: st0.suctionVolumeFlowM3s,
     sweptVolumeM3s: cycle.stages.reduce((a, s) => a + s.sweptVolumeM3s, 0),

@@ -98,15 +98,20 @@ export function systemsOf(circuits: CircuitResult[]): SystemResult[] {
     let roomS = 0;
     let workW = 0;
     let sgen = 0;
+    let hotGasW = 0;
+    let hotGasS = 0;
     for (const c of members) {
       workW += c.shaftPowerW + c.pumpPowerW;
       sgen += c.entropyGeneration.totalW_K;
       // Room reservoirs only: cascade transfers are internal to the chain.
       roomW += c.evaporatorRoomDutyW;
       roomS += c.roomEntropyW_K;
+      hotGasW += c.hotGasDefrost?.heatW ?? 0;
+      hotGasS += c.hotGasDefrost?.entropyW_K ?? 0;
     }
     const sinkK = t.sinkC + K0;
-    const inW = roomW + workW;
+    // Hot-gas defrost heat is taken up by the chain like a room's, but is not refrigeration.
+    const inW = roomW + hotGasW + workW;
     const relativeError = Math.abs(t.heatRejectedW - inW) / inW;
     if (!(relativeError <= ENERGY_CLOSURE))
       throw new PlantError(
@@ -114,7 +119,7 @@ export function systemsOf(circuits: CircuitResult[]): SystemResult[] {
         `${t.tag}: the chain rejects ${t.heatRejectedW.toFixed(0)} W but takes in ${inW.toFixed(0)} W (${(relativeError * 100).toFixed(3)} %)`,
         `plant.circuits`,
       );
-    const tL = roomW / roomS;
+    const tL = (roomW + hotGasW) / (roomS + hotGasS);
     const copCarnot = roomW > 0 && sinkK > tL ? tL / (sinkK - tL) : null;
     const cop = roomW / workW;
     out.push({
@@ -128,7 +133,7 @@ export function systemsOf(circuits: CircuitResult[]): SystemResult[] {
       copCarnot,
       secondLawEfficiency: copCarnot === null ? null : cop / copCarnot,
       entropyGenerationW_K: sgen,
-      clausiusW_K: t.heatRejectedW / sinkK - roomS,
+      clausiusW_K: t.heatRejectedW / sinkK - roomS - hotGasS,
       energyBalance: { inW, outW: t.heatRejectedW, relativeError },
     });
   }

@@ -44,6 +44,7 @@ function circuitRows(c: CircuitResult, p: PlantResult): ScheduleItem[] {
   const dp = { lowSide: c.designPressures.lowSide.pPa, highSide: c.designPressures.highSide.pPa };
   const running = c.compressor.units - c.compressor.standbyUnits;
   const stages = c.stages.map((s) => s.name).join(" + ");
+  const hotGasW = c.hotGasDefrost?.heatW ?? 0;
   rows.push({
     tag: c.scheduleTags.compressor,
     kind: "compressor-set",
@@ -51,11 +52,12 @@ function circuitRows(c: CircuitResult, p: PlantResult): ScheduleItem[] {
     sourceId: c.id,
     quantity: c.compressor.units,
     standbyQuantity: c.compressor.standbyUnits,
-    dutyW: c.refrigerationW,
-    dutyPerUnitW: c.refrigerationW / running,
+    // The set also supplies its evaporators' hot-gas defrosts (24-h mean), stated with the duty.
+    dutyW: c.refrigerationW + hotGasW,
+    dutyPerUnitW: (c.refrigerationW + hotGasW) / running,
     refrigerant: c.refrigerant,
     temperatures: { suction: c.suctionC, condensing: c.condensingC, intermediate: c.intermediateC, discharge: c.dischargeTempC },
-    ratingConditions: `suction ${c1(c.suctionC)} °C (${c.tempConvention}), ${c.cycle === "transcritical" ? "gas-cooler outlet" : "condensing"} ${c1(c.condensingC)} °C, superheat ${c1(c.superheatK)} K, subcooling ${c1(c.subcoolingK)} K; swept volume ${(c.sweptVolumeM3s * 3600).toFixed(0)} m³/h in total; shaft ${(c.shaftPowerW / 1000).toFixed(1)} kW`,
+    ratingConditions: `suction ${c1(c.suctionC)} °C (${c.tempConvention}), ${c.cycle === "transcritical" ? "gas-cooler outlet" : "condensing"} ${c1(c.condensingC)} °C, superheat ${c1(c.superheatK)} K, subcooling ${c1(c.subcoolingK)} K; swept volume ${(c.sweptVolumeM3s * 3600).toFixed(0)} m³/h in total; shaft ${(c.shaftPowerW / 1000).toFixed(1)} kW${hotGasW > 0 ? `; includes ${(hotGasW / 1000).toFixed(1)} kW hot-gas defrost (24-h mean) for ${c.hotGasDefrost.byEvaporator.map((e) => e.tag).join(", ")}` : ""}`,
     electricalW: c.compressorElectricalW,
     designPressurePa: dp,
     circuitId: c.id,

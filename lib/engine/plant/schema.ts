@@ -229,14 +229,29 @@ const ratedEvaporatorSchema = z.object({
     airOnC: range(-60, 40, "°C"),
     /** Rating TD = air-on − evaporating temperature, K. */
     tdK: range(1, 25, "K"),
+    /** Feed the unit was rated with (catalogues: DX, or pumped / flooded). */
     feed: z.enum(["dx", "pumped"]),
+    /** Air-on relative humidity at rating, %; default 85 % (the EN 328 wet standard conditions, from memory). */
+    rhPct: range(0, 100, "%").optional(),
   }),
+  /** Feed on site when it differs from the design evaporator's in this room (default: that, else the rating's). */
+  siteFeed: z.enum(["dx", "pumped"]).optional(),
+  /**
+   * Mean capacity lost to frost over a defrost cycle, fraction of the clean-coil capacity;
+   * default 0.1 for a coil below 0 °C, 0 above (common practice).
+   */
+  frostCapacityLoss: range(0, 0.5).optional(),
 });
 
 const installedCompressorSchema = z.object({
   id,
   tag,
   circuitId: id,
+  /**
+   * Which stage of a two-stage circuit the set serves: "low" (booster, suction to intermediate)
+   * or "high" (intermediate to condensing). Default "low"; ignored on single-stage circuits.
+   */
+  stage: z.enum(["low", "high"]).optional(),
   type: compressorTypeSchema,
   units: intRange(1, 50),
   standbyUnits: intRange(0, 49).default(0),
@@ -390,8 +405,10 @@ export const plantInputSchema = z
           ctx.addIssue({ code: "custom", path: ["installed", "evaporators", i, "circuitId"], message: `no circuit "${e.circuitId}"` });
       });
       inst.compressors.forEach((e, i) => {
-        if (!circuits.has(e.circuitId))
-          ctx.addIssue({ code: "custom", path: ["installed", "compressors", i, "circuitId"], message: `no circuit "${e.circuitId}"` });
+        const c = circuits.get(e.circuitId);
+        if (!c) ctx.addIssue({ code: "custom", path: ["installed", "compressors", i, "circuitId"], message: `no circuit "${e.circuitId}"` });
+        else if (e.stage !== undefined && c.arrangement !== "two-stage")
+          ctx.addIssue({ code: "custom", path: ["installed", "compressors", i, "stage"], message: `circuit "${c.id}" is ${c.arrangement}: a stage ("low" | "high") applies to two-stage circuits only` });
       });
       inst.condensers.forEach((e, i) => {
         if (!condensers.has(e.condenserId))

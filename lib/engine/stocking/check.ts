@@ -174,8 +174,9 @@ export function compareWithInstalled(model: FacilityModel, res: FacilityResult, 
       daily += share * b.daily;
       for (let h = 0; h < 24; h++) hourly[h] += share * b.hourly[h];
     }
-    const cascadeW = c.refrigerationW - c.evaporatorRoomDutyW;
-    circuitReq.set(c.id, { daily: daily + cascadeW, peak: Math.max(...hourly) + cascadeW, design: c.refrigerationW });
+    // Cascade heat from low stages and the hot gas the compressors supply for defrosts.
+    const cascadeW = c.refrigerationW - c.evaporatorRoomDutyW + (c.hotGasDefrost?.heatW ?? 0);
+    circuitReq.set(c.id, { daily: daily + cascadeW, peak: Math.max(...hourly) + cascadeW, design: c.refrigerationW + (c.hotGasDefrost?.heatW ?? 0) });
   }
   const compsByCircuit = new Map<string, string[]>();
   for (const x of installed.compressors) compsByCircuit.set(x.circuitId, [...(compsByCircuit.get(x.circuitId) ?? []), x.tag]);

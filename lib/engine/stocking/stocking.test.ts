@@ -1,3 +1,5 @@
+import { coilDrivingTdK } from "../plant/rerate";
+import { sitePressurePa } from "../loads/psychro";
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -99,9 +101,14 @@ describe("stocking check against the installed plant", () => {
     expect(short.verdict).toBe("shortfall");
     const lim = short.limiting!;
     expect(lim.item).toMatchObject({ kind: "room-evaporators", id: "apples", tags: ["EV-3"] });
-    // One installed unit rated 34 kW at TD 5 K, running at its design TD 5 K (+2 °C room,
-    // coil at −3 °C): Q = UA·TD = (34 kW / 5 K) × 5 K = 34 kW (hand calculation, DOMAIN.md §2).
-    expect(lim.availableW).toBeCloseTo(34_000, 6);
+    // One installed unit rated 37.8 kW clean at its room's own state (+2 °C, 90 %, TD 5 K),
+    // running at that TD (coil at −3 °C): Q = UA·TD gives the rating back (DOMAIN.md §2), less
+    // the 10 % mean frost loss of a coil below 0 °C (common practice): 34.02 kW; the site's
+    // 150 m elevation adds a little latent capacity (same RH, lower pressure: higher W).
+    const elevation = coilDrivingTdK(2, 90, -3, sitePressurePa(150)).drivingK / coilDrivingTdK(2, 90, -3, 101_325).drivingK;
+    expect(elevation).toBeGreaterThan(1);
+    expect(elevation).toBeLessThan(1.01);
+    expect(lim.availableW).toBeCloseTo(34_020 * elevation, 6);
     expect(lim.headroomW).toBeCloseTo(lim.availableW - lim.requiredW, 9);
     expect(lim.headroomW).toBeLessThan(0);
     // Every item is checked on both bases.
@@ -126,8 +133,12 @@ describe("stocking check against the installed plant", () => {
     const ev = r.checks.find((c) => c.item.id === "ripening")!;
     // Medium-temperature coils at the new set points: apples 2 − 5 = −3 °C, ripening 2 − 5 = −3 °C,
     // dock 5 − 7 = −2 °C → suction −3 − 1 (allowance) = −4 °C; the ripening coil runs at
-    // max(−4 + 1, 2 − 5) = −3 °C, TD 5 K = its rating TD, so 12 kW × 5/5 = 12 kW (hand calculation).
-    expect(ev.availableW).toBeCloseTo(12_000, 6);
+    // max(−4 + 1, 2 − 5) = −3 °C, TD 5 K = its rating TD, so 12 kW × 5/5 = 12 kW by UA·TD alone.
+    // Rated at +14 °C / 90 % air on, its wet coil had a larger latent part than it has frosting
+    // at +2 °C, and it now frosts (−10 %): the driving-TD ratio and frost loss lower it.
+    const drive = coilDrivingTdK(2, 90, -3, sitePressurePa(150)).drivingK / coilDrivingTdK(14, 90, 9, 101_325).drivingK;
+    expect(drive).toBeLessThan(1);
+    expect(ev.availableW).toBeCloseTo(12_000 * drive * 0.9, 6);
     expect(r.rooms[0].after.setPointC).toBe(2);
   });
 
