@@ -41,6 +41,7 @@ import {
 import { assemblePlant, computePlant, fluidsNeeded, type PlantResult } from "./plant/plant";
 import { designCapacityWithFeedback, NO_FEEDBACK, withFeedback } from "./plant/ledger-feedback";
 import { plantInputSchema, type EvaporatorInput, type PlantInput } from "./plant/schema";
+import { operationSchema } from "./annual/schema";
 
 export { buildSchedule } from "./plant/schedule";
 export { rerateInstalled } from "./plant/rerate";
@@ -53,6 +54,11 @@ export const PLANT_ENGINE_VERSION = "plant-1.0.0";
 const plantPart = z.object({
   schemaVersion: z.literal(FACILITY_SCHEMA_VERSION),
   plant: plantInputSchema.prefault({}),
+  /**
+   * How the facility runs through the year (schedules, part load, tariff) for the annual
+   * engine (`lib/engine/annual`); optional, and every default is the design day.
+   */
+  operation: operationSchema.optional(),
 });
 
 /**
@@ -111,9 +117,10 @@ export function facilityFluidsNeeded(model: Pick<FacilityModel, "plant">): Fluid
 
 /** The ledger's own part of the document: everything but the version and the plant. */
 function ledgerPart(m: FacilityModel): LedgerInput {
-  const { schemaVersion, plant, ...ledger } = m;
+  const { schemaVersion, plant, operation, ...ledger } = m;
   void schemaVersion;
   void plant;
+  void operation;
   return ledger;
 }
 
