@@ -46,3 +46,7 @@ export const SOURCE_WORDS: Record<WeatherKind, string> = {
   monthly: "built from monthly means (an approximation)",
   demo: "invented demo year (fictional)",
 };
+
+/** A year to build from monthly means: the year (sets the calendar and weekdays) and the twelve months. */
+export const YEAR_MSG = "year must be a whole number from 1900 to 2100";
+export const monthlyYearNumber = z.number({ error: YEAR_MSG }).int(YEAR_MSG).min(1900, YEAR_MSG).max(2100, YEAR_MSG);
