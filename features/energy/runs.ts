@@ -5,6 +5,7 @@ import { annualResults, jobs } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { enqueue, type JobRow } from "@/lib/jobs/queue";
 import { ANNUAL_ENGINE_VERSION } from "@/lib/engine/annual";
+import { log } from "@/lib/log";
 import { getFacilityRow } from "@/features/facilities/queries";
 import { inputHashOf, loadFacilityModel } from "@/features/facilities/model";
 import { currentWeather, type WeatherRow } from "./weather";
@@ -91,4 +92,16 @@ export function staleReasons(r: Pick<AnnualResultRow, "inputHash" | "weatherId" 
   if (now.weatherId !== null && r.weatherId !== now.weatherId) out.push("the weather year changed");
   if (r.engineVersion !== now.engineVersion) out.push(`the engine changed (${r.engineVersion} → ${now.engineVersion})`);
   return out;
+}
+
+/**
+ * After a model edit: queue the year again (one job per version and weather). Never fails the
+ * edit: a queue that cannot be reached is logged, and the Energy page asks again when opened.
+ */
+export async function rerunAfterModelChange(workspaceId: string, facilityId: string, userId: string): Promise<void> {
+  try {
+    await requestAnnualRun({ workspaceId, facilityId, userId, reason: "model edited" });
+  } catch (e) {
+    log("warn", "annual run not queued after a model edit", { facilityId, error: String((e as Error)?.message ?? e) });
+  }
 }
