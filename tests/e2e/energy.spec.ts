@@ -1,0 +1,92 @@
+import { execFileSync } from "node:child_process";
+import { mkdirSync, readFileSync } from "node:fs";
+import path from "node:path";
+import { test, expect, request as pwRequest, type Page } from "@playwright/test";
+import { stateOf, WS } from "./roles";
+
+const shot = (page: Page, name: string) => page.screenshot({ path: `.run/test/screenshots/${name}.png`, fullPage: true });
+const SITE = { designDryBulbC: 32, coincidentWetBulbC: 23, groundTempC: 12, elevationM: 150 };
+const FIXTURE = path.resolve(".run/test/invented-weather.csv");
+let facilityId: string;
+
+test.beforeAll(async ({ baseURL }) => {
+  // The weather file: an invented year written by the repo's own script (fictional data).
+  mkdirSync(path.dirname(FIXTURE), { recursive: true });
+  execFileSync("npx", ["tsx", "scripts/invent-weather.ts", FIXTURE, "2025", "11"], { stdio: "pipe" });
+  const designer = await pwRequest.newContext({ baseURL, storageState: stateOf("designer") });
+  const made = await designer.post(`/api/v1/workspaces/${WS}/facilities`, { data: { name: `Energy e2e ${Date.now()} (invented)`, site: SITE } });
+  expect(made.status(), await made.text()).toBe(201);
+  facilityId = (await made.json()).facility.id;
+  const { $comment, ...doc } = JSON.parse(readFileSync("seeds/data/harrowfield-model.json", "utf8"));
+  void $comment;
+  const saved = await designer.put(`/api/v1/workspaces/${WS}/facilities/${facilityId}/model`, { data: { baseVersion: 1, doc, summary: "demo model" } });
+  expect(saved.status(), await saved.text()).toBe(200);
+  await designer.dispose();
+});
+
+test.describe.configure({ mode: "serial" });
+
+test.describe("designer", () => {
+  test.use({ storageState: stateOf("designer") });
+
+  test("uploads a weather file (a bad one is refused by row and column), the year runs, the figures show; a tariff prices it", async ({ page }) => {
+    test.setTimeout(120_000);
+    await page.goto(`/w/${WS}/f/${facilityId}/energy`);
+    await expect(page.getByRole("tab", { name: "Energy" }).or(page.getByRole("link", { name: "Energy" })).first()).toBeVisible();
+    await expect(page.getByText("It needs a weather year first.")).toBeVisible();
+    const good = readFileSync(FIXTURE, "utf8");
+    const bad = good.split("\n").map((l, i) => (i === 2 ? l.replace(/,[^,]+$/, ",104.0") : l)).join("\n");
+    await page.getByLabel("Weather file (.csv or .epw)").setInputFiles({ name: "bad-year.csv", mimeType: "text/csv", buffer: Buffer.from(bad) });
+    await page.getByRole("button", { name: "Upload weather file" }).click();
+    const alert = page.getByRole("alert").filter({ hasText: "nothing was stored" });
+    await expect(alert).toBeVisible();
+    await expect(alert).toContainText("row 3 · Relative humidity [%]: 104 % is over 100 %");
+    await expect(page.getByText("It needs a weather year first.")).toBeVisible();
+
+    await page.getByLabel("Weather file (.csv or .epw)").setInputFiles(FIXTURE);
+    await page.getByRole("button", { name: "Upload weather file" }).click();
+    await expect(page.getByRole("status").filter({ hasText: "Stored: invented-weather.csv (hourly CSV, 2025)" })).toBeVisible();
+    await expect(page.getByTestId("weather-source")).toContainText("invented-weather.csv (hourly CSV, 2025)");
+    await expect(page.getByTestId("weather-source")).toContainText("uploaded hourly file");
+    await expect(page.getByTestId("annual-kwh")).toContainText(/MWh\(e\)/, { timeout: 60_000 });
+    await expect(page.getByTestId("seasonal-cop")).toContainText(/\d\.\d\d · \d\.\d\d/);
+    await expect(page.getByTestId("peak-kwe")).toContainText("kW(e)");
+    await expect(page.getByTestId("kwh-per-m3")).toContainText("kWh(e)/m³·yr");
+    await expect(page.getByTestId("split-table")).toContainText("Compressors");
+    await expect(page.getByTestId("split-table")).toContainText("C-1");
+    await expect(page.getByRole("img", { name: /Bars: the facility's kWh\(e\) each month/ })).toBeVisible();
+    await page.getByRole("group", { name: "Monthly energy: chart or table" }).getByRole("button", { name: "Table" }).click();
+    await expect(page.getByTestId("monthly-table")).toContainText("Dec");
+    await shot(page, "energy-designer");
+
+    // a tariff out of range is named and nothing saved; a valid one prices the year
+    await page.getByLabel("Price", { exact: true }).fill("250");
+    await page.getByRole("button", { name: "Save tariff and operation" }).click();
+    await expect(page.getByText("Price must be between 0 and 100 EUR/kWh").first()).toBeVisible();
+    await page.getByLabel("Price", { exact: true }).fill("0.18");
+    await page.getByLabel("Demand charge", { exact: true }).fill("9");
+    await page.getByRole("button", { name: "Save tariff and operation" }).click();
+    await expect(page.getByRole("status").filter({ hasText: /Saved as model version \d+/ })).toBeVisible();
+    await expect(page.getByTestId("annual-cost")).toContainText(/€[1-9][\d,]*/, { timeout: 60_000 });
+    await expect(page.getByText("Out of date")).toHaveCount(0, { timeout: 30_000 });
+    await shot(page, "energy-designer-priced");
+  });
+});
+
+test.describe("viewer", () => {
+  test.use({ storageState: stateOf("viewer") });
+
+  test("reads the year and cannot edit the weather, the tariff or run it", async ({ page }) => {
+    await page.goto(`/w/${WS}/f/${facilityId}/energy`);
+    await expect(page.getByTestId("annual-kwh")).toContainText(/MWh\(e\)/, { timeout: 30_000 });
+    await expect(page.getByTestId("weather-source")).toContainText("invented-weather.csv");
+    await expect(page.getByRole("button", { name: "Run the year" })).toHaveCount(0);
+    await expect(page.getByLabel("Weather file (.csv or .epw)")).toHaveCount(0);
+    await expect(page.getByRole("button", { name: "Save tariff and operation" })).toHaveCount(0);
+    await expect(page.getByText("Read only: owners and designers change the tariff and the schedules.")).toBeVisible();
+    await expect(page.getByLabel("Price", { exact: true })).toBeDisabled();
+    const r = await page.request.post(`/api/v1/workspaces/${WS}/facilities/${facilityId}/energy`);
+    expect(r.status()).toBe(403);
+    await shot(page, "energy-viewer");
+  });
+});
