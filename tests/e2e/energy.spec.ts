@@ -49,7 +49,7 @@ test.describe("designer", () => {
     await expect(page.getByTestId("weather-source")).toContainText("invented-weather.csv (hourly CSV, 2025)");
     await expect(page.getByTestId("weather-source")).toContainText("uploaded hourly file");
     await expect(page.getByTestId("annual-kwh")).toContainText(/MWh\(e\)/, { timeout: 60_000 });
-    await expect(page.getByTestId("seasonal-cop")).toContainText(/\d\.\d\d · \d\.\d\d/);
+    await expect(page.getByTestId("seasonal-cop")).toContainText(/\d+\.\d\d · \d+\.\d\d/);
     await expect(page.getByTestId("peak-kwe")).toContainText("kW(e)");
     await expect(page.getByTestId("kwh-per-m3")).toContainText("kWh(e)/m³·yr");
     await expect(page.getByTestId("split-table")).toContainText("Compressors");

@@ -212,7 +212,7 @@ function Results({
         <Figure
           label="Running cost per year"
           value={fmt.money(f.cost.total, currency)}
-          sub={`energy ${fmt.money(f.cost.energy, currency)} + demand ${fmt.money(f.cost.demand, currency)}`}
+          sub={f.cost.total === 0 ? "no tariff entered yet: set one under Tariff and operation" : `energy ${fmt.money(f.cost.energy, currency)} + demand ${fmt.money(f.cost.demand, currency)}`}
           testId="annual-cost"
         />
         <Figure
