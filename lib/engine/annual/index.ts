@@ -16,8 +16,8 @@ import type { CircuitInput } from "../plant/schema";
 import { getFluid as thermoGetFluid } from "../thermo";
 import type { Fluid, FluidId } from "../thermo/types";
 import { controlSource, defaultCapacityControl, powerFraction } from "./part-load";
-import { buildRoomHourModel, directRoomHour, fastRoomHour, type HourFactors, type RoomHourModel } from "./room-hours";
-import { operationSchema, type CapacityControl, type CircuitOperation, type OperationInput } from "./schema";
+import { buildRoomHourModel, directRoomHour, fastRoomHour, roomHourParts, type HourFactors, type LoadAndMoisture, type RoomHourModel } from "./room-hours";
+import { circuitOperationSchema, operationSchema, type CapacityControl, type CircuitOperation, type OperationInput } from "./schema";
 import { calendarOf, hourLabel, validateWeatherYear, type Calendar, type WeatherYear } from "./weather";
 
 export * from "./schema";
@@ -25,7 +25,7 @@ export { sineDayYear, constantYear, validateWeatherYear, calendarOf, hourLabel, 
 export type { WeatherYear, Calendar } from "./weather";
 export { powerFraction, leadPowerFraction, defaultCapacityControl, SLIDE_VALVE_CURVE, VSD_EFFICIENCY_CURVE, SLIDE_VALVE_SOURCE, VSD_SOURCE, CYCLING_SOURCE } from "./part-load";
 
-export const ANNUAL_ENGINE_VERSION = "annual-1.0.0";
+export const ANNUAL_ENGINE_VERSION = "annual-1.1.0";
 
 export interface SplitKWh {
   compressors: number;
@@ -97,6 +97,10 @@ export interface AnnualResult {
   circuits: Array<AnnualFigures & { circuitId: string; name: string }>;
   /** Rooms' load over the year, kWh, and the evaporators' share of fans and defrost. */
   rooms: Array<{ roomId: string; name: string; loadKWh: number; served: boolean; defrostsPerYear: number }>;
+  /** The facility's peak hour taken apart. */
+  peakHourTrace: HourTrace;
+  /** The hours asked for in `traceHours`, taken apart. */
+  hourTraces: HourTrace[];
   statements: string[];
   warnings: string[];
 }
@@ -107,19 +111,63 @@ export interface AnnualOptions {
   /** Grid step of the cycle table, K (fast method); default 0.5. */
   gridStepK?: number;
   getFluid?: (id: FluidId) => Fluid;
+  /** Hours of the year (0-based) to take apart in `hourTraces`; the facility's peak hour always is (`peakHourTrace`). */
+  traceHours?: number[];
+}
+
+/** One hour taken apart: its weather and schedules, every room's load by part, every circuit's state and input. */
+export interface HourTrace {
+  index: number;
+  label: string;
+  dryBulbC: number;
+  rhPct: number;
+  wetBulbC: number;
+  outdoorEnthalpyKJkg: number;
+  factors: HourFactors;
+  rooms: Array<
+    ReturnType<typeof roomHourParts> & {
+      roomId: string;
+      /** The load the evaporators served this hour (parts + fan and defrost heat, not below 0), W. */
+      loadW: number;
+      fansHeatW: number;
+      defrostHeatW: number;
+      defrostsPerDay: number;
+      moistureKgPerDay: number;
+    }
+  >;
+  circuits: Array<{
+    circuitId: string;
+    name: string;
+    /** Refrigeration served, W (rooms and cascade exchangers). */
+    loadW: number;
+    condensingC: number | null;
+    sinkC: number;
+    partLoadRatio: number;
+    powerFraction: number;
+    kW: SplitKWh;
+    carnotWorkW: number;
+    workW: number;
+  }>;
 }
 
 /** Validates the `operation` section (defaults filled); errors name `operation.<path>` and the range. */
-export function parseOperation(raw: unknown, model?: Pick<FacilityModel, "plant" | "doors">): OperationInput {
+export function parseOperation(raw: unknown): OperationInput {
   const r = operationSchema.safeParse(raw ?? {});
   if (!r.success) throw new LoadInputError(r.error.issues.map((i) => ({ field: ["operation", ...i.path.map(String)].join("."), message: i.message })));
-  if (model) {
-    const circuits = new Set(model.plant.circuits.map((c) => c.id));
-    for (const id of Object.keys(r.data.circuits)) if (!circuits.has(id)) fail(`operation.circuits.${id}`, `no circuit with id "${id}"`);
-    const doors = new Set(model.doors.map((d) => d.id));
-    for (const id of Object.keys(r.data.doorTraffic.byDoor)) if (!doors.has(id)) fail(`operation.doorTraffic.byDoor.${id}`, `no door with id "${id}"`);
-  }
   return r.data;
+}
+
+/**
+ * Entries of `operation` for circuits or doors the model does not have (left by a deleted
+ * item, or kept for another plant option's circuits): ignored, each named in a warning.
+ */
+export function operationWarnings(op: OperationInput, model: Pick<FacilityModel, "plant" | "doors">): string[] {
+  const out: string[] = [];
+  const circuits = new Set(model.plant.circuits.map((c) => c.id));
+  for (const id of Object.keys(op.circuits)) if (!circuits.has(id)) out.push(`operation.circuits.${id}: no circuit with id "${id}" in this plant; ignored`);
+  const doors = new Set(model.doors.map((d) => d.id));
+  for (const id of Object.keys(op.doorTraffic.byDoor)) if (!doors.has(id)) out.push(`operation.doorTraffic.byDoor.${id}: no door with id "${id}"; ignored`);
+  return out;
 }
 
 function ledgerPart(m: FacilityModel): LedgerInput {
@@ -170,11 +218,14 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
   const step = opts.gridStepK ?? 0.5;
   if (!(step > 0 && step <= 5)) fail("gridStepK", "must be greater than 0 and at most 5 K");
   validateWeatherYear(weather);
-  const op = parseOperation((model as { operation?: unknown }).operation, model);
+  const op = parseOperation((model as { operation?: unknown }).operation);
   const getFluid = opts.getFluid ?? thermoGetFluid;
   const design = computeFacility(model, { getFluid });
   const lctx = contextFromParsed(ledgerPart(model));
   const hours = weather.dryBulbC.length;
+  (opts.traceHours ?? []).forEach((i, k) => {
+    if (!(Number.isInteger(i) && i >= 0 && i < hours)) fail(`traceHours.${k}`, `must be a whole hour between 0 and ${hours - 1}`);
+  });
   const cal = calendarOf(hours, weather.startWeekday);
   const pressurePa = weather.pressurePa ?? lctx.site.pressurePa;
 
@@ -191,7 +242,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
   const designById = new Map(design.plant.circuits.map((r) => [r.id, r]));
   const sizedByRoom = new Map<string, EvaporatorSizing[]>();
   for (const s of design.plant.evaporators) sizedByRoom.set(s.roomId, [...(sizedByRoom.get(s.roomId) ?? []), s]);
-  const warnings: string[] = [];
+  const warnings: string[] = operationWarnings(op, model);
   const rooms = new Map(model.rooms.map((r) => [r.id, { setPointC: r.setPointC, rhPct: r.rhPct }]));
 
   // Circuits -------------------------------------------------------------------------------
@@ -199,7 +250,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
   model.plant.circuits.forEach((c, index) => {
     const d = designById.get(c.id);
     if (!d) return; // no load at design: nothing runs
-    const cop = op.circuits[c.id] ?? operationSchema.shape.circuits.parse({ x: {} }).x;
+    const cop = op.circuits[c.id] ?? circuitOperationSchema.parse({});
     const units = Math.max(1, c.compressor.units - c.compressor.standbyUnits);
     const plan: CircuitPlan = {
       c,
@@ -249,66 +300,93 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
     const i = d * 24;
     dayFactor[d] = (intake.byWeekday?.[cal.weekday[i]] ?? 1) * (intake.byMonth?.[cal.month[i]] ?? 1);
   }
-  const facilityLoad = new Float64Array(hours);
+  const factorsAt = (i: number): HourFactors => {
+    const wd = cal.weekday[i];
+    const h = i % 24;
+    return { product: dayFactor[cal.day[i]], people: op.people?.[wd][h] ?? 1, lights: op.lights?.[wd][h] ?? 1 };
+  };
+  /**
+   * One room's day: the load of each hour without fans and defrost (into `base`), the day's
+   * moisture and so its defrosts, and each evaporator's fan and defrost power that day.
+   */
+  const fast: LoadAndMoisture = { w: 0, moistureKgS: 0 };
+  const f: HourFactors = { product: 1, people: 1, lights: 1 };
+  const evalDay = (m: RoomHourModel, evs: EvaporatorSizing[], d: number, base: Float64Array) => {
+    let moistureKg = 0;
+    const wd = cal.weekday[d * 24];
+    f.product = dayFactor[d];
+    for (let h = 0; h < 24; h++) {
+      const i = d * 24 + h;
+      f.people = op.people ? op.people[wd][h] : 1;
+      f.lights = op.lights ? op.lights[wd][h] : 1;
+      fastRoomHour(m, h, wd, f, air[i], fast);
+      base[h] = method === "direct" ? directRoomHour(m, h, wd, f, air[i], lctx) : fast.w;
+      moistureKg += fast.moistureKgS * 3600;
+    }
+    // Defrosts per day rise with the moisture the air exchange brings in (README: the rule).
+    const ratio = m.designMoistureKg > 0 ? Math.min(op.defrost.maxFactor, op.defrost.fixedShare + (1 - op.defrost.fixedShare) * (moistureKg / m.designMoistureKg)) : 1;
+    let fanHeatW = 0;
+    let defrostHeatW = 0;
+    let defrostsPerDay = 0;
+    const perEvap: { e: EvaporatorSizing; fanW: number; electricW: number; defrostsPerDay: number }[] = [];
+    for (const e of evs) {
+      const n = Math.min(e.defrost.defrostsPerDay * ratio, e.defrost.minutesPerDefrost > 0 ? 1440 / e.defrost.minutesPerDefrost : Infinity);
+      defrostsPerDay += n;
+      const downH = e.defrost.type === "off-cycle" ? 0 : (e.defrost.minutesPerDefrost * n) / 60;
+      const fw = (e.fanPowerW * Math.max(0, 24 - downH)) / 24;
+      fanHeatW += fw;
+      defrostHeatW += (e.defrost.heaterW * (e.defrost.minutesPerDefrost / 60) * n * e.defrost.fractionToRoom) / 24;
+      perEvap.push({ e, fanW: fw, electricW: (e.defrost.electricW * (e.defrost.minutesPerDefrost / 60) * n) / 24, defrostsPerDay: n });
+    }
+    return { perEvap, fanHeatW, defrostHeatW, defrostsPerDay, moistureKg, ratio };
+  };
   const roomVolumeByCircuit = new Map<string, number>();
+  const roomTonnesByCircuit = new Map<string, number>();
   for (const m of roomModels) {
     const r = m.room;
     const vol = r.lengthM * r.widthM * r.heightM;
     volumeM3 += vol;
-    for (let d = 0; d < cal.days; d++) tonnes += m.designIntakeT * dayFactor[d];
+    let roomTonnes = 0;
+    for (let d = 0; d < cal.days; d++) roomTonnes += m.designIntakeT * dayFactor[d];
+    tonnes += roomTonnes;
     const evs = sizedByRoom.get(r.id) ?? [];
-    for (const e of evs) roomVolumeByCircuit.set(e.circuitId, (roomVolumeByCircuit.get(e.circuitId) ?? 0) + vol / evs.length);
+    // A circuit's benchmarks: the volume and intake of the rooms it serves, shared by evaporator.
+    for (const e of evs) {
+      roomVolumeByCircuit.set(e.circuitId, (roomVolumeByCircuit.get(e.circuitId) ?? 0) + vol / evs.length);
+      roomTonnesByCircuit.set(e.circuitId, (roomTonnesByCircuit.get(e.circuitId) ?? 0) + roomTonnes / evs.length);
+    }
     const base = new Float64Array(24);
     let loadWh = 0;
     let defrosts = 0;
+    // Per evaporator, looked up once: its circuit, pump input per W, and the room's 1/T for the Carnot sums.
+    const entries = evs.map((e) => {
+      const plan = plans.get(e.circuitId);
+      return { e, plan, pumpK: plan ? pumpPerW(plan, e, getFluid) : 0 };
+    });
+    const invT = 1 / (r.setPointC + K0);
+    const shareOf = evs.length ? 1 / evs.length : 0;
     for (let d = 0; d < cal.days; d++) {
-      let moistureKg = 0;
-      for (let h = 0; h < 24; h++) {
-        const i = d * 24 + h;
-        const wd = cal.weekday[i];
-        const f: HourFactors = { product: dayFactor[d], people: op.people?.[wd][h] ?? 1, lights: op.lights?.[wd][h] ?? 1 };
-        const fast = fastRoomHour(m, h, wd, f, air[i]);
-        base[h] = method === "direct" ? directRoomHour(m, h, wd, f, air[i], lctx) : fast.w;
-        moistureKg += fast.moistureKgS * 3600;
-      }
-      // Defrosts per day rise with the moisture the air exchange brings in (README: the rule).
-      const ratio = m.designMoistureKg > 0 ? Math.min(op.defrost.maxFactor, op.defrost.fixedShare + (1 - op.defrost.fixedShare) * (moistureKg / m.designMoistureKg)) : 1;
-      let fanW = 0;
-      let fanHeatW = 0;
-      let defrostHeatW = 0;
-      const perEvap: { e: EvaporatorSizing; fanW: number; electricW: number }[] = [];
-      for (const e of evs) {
-        const n = Math.min(e.defrost.defrostsPerDay * ratio, e.defrost.minutesPerDefrost > 0 ? 1440 / e.defrost.minutesPerDefrost : Infinity);
-        defrosts += n;
-        const downH = e.defrost.type === "off-cycle" ? 0 : (e.defrost.minutesPerDefrost * n) / 60;
-        const fw = (e.fanPowerW * Math.max(0, 24 - downH)) / 24;
-        const heat = (e.defrost.heaterW * (e.defrost.minutesPerDefrost / 60) * n * e.defrost.fractionToRoom) / 24;
-        fanW += fw;
-        fanHeatW += fw;
-        defrostHeatW += heat;
-        perEvap.push({ e, fanW: fw, electricW: (e.defrost.electricW * (e.defrost.minutesPerDefrost / 60) * n) / 24 });
-      }
-      void fanW;
+      const { perEvap, fanHeatW, defrostHeatW, defrostsPerDay } = evalDay(m, evs, d, base);
+      defrosts += defrostsPerDay;
       for (let h = 0; h < 24; h++) {
         const i = d * 24 + h;
         const q = Math.max(0, base[h] + fanHeatW + defrostHeatW);
         loadWh += q;
-        facilityLoad[i] += evs.length ? q : 0;
-        for (const pe of perEvap) {
-          const plan = plans.get(pe.e.circuitId);
+        const share = q * shareOf;
+        for (let k = 0; k < entries.length; k++) {
+          const { plan, e, pumpK } = entries[k];
           if (!plan) continue;
-          const share = q / evs.length;
           plan.load[i] += share;
           if (method === "direct") {
             plan.evapDuty ??= new Map();
-            let a = plan.evapDuty.get(pe.e.id);
-            if (!a) plan.evapDuty.set(pe.e.id, (a = new Float64Array(hours)));
+            let a = plan.evapDuty.get(e.id);
+            if (!a) plan.evapDuty.set(e.id, (a = new Float64Array(hours)));
             a[i] += share;
           }
-          plan.entropy[i] += share / (r.setPointC + K0);
-          plan.pump[i] += pumpPerW(plan, pe.e, getFluid) * share;
-          plan.evapFans[i] += pe.fanW;
-          plan.defrost[i] += pe.electricW;
+          plan.entropy[i] += share * invT;
+          plan.pump[i] += pumpK * share;
+          plan.evapFans[i] += perEvap[k].fanW;
+          plan.defrost[i] += perEvap[k].electricW;
         }
       }
     }
@@ -357,6 +435,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
       const q = p.load[i] + p.lowHeat[i];
       acc.evaporatorFans[i] = p.evapFans[i];
       acc.defrost[i] = p.defrost[i];
+      acc.sink[i] = sink[i];
       if (!(q > 0)) continue;
       const loadW = q + p.pump[i];
       let ratios: { shaft: number; swept: number; oil: number };
@@ -368,6 +447,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
       if (plr > 1 + 1e-9) {
         acc.unmetWh += loadW - capW;
         acc.overHours++;
+        acc.over[i] = 1;
       }
       const pf = powerFraction(Math.min(1, plr), p.control, p.units);
       const shaftW = pf * capW * ratios.shaft;
@@ -391,7 +471,6 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
       acc.loadW[i] = qServed;
       acc.roomLoadW[i] = p.load[i] * frac;
       acc.roomEntropy[i] = p.entropy[i] * frac;
-      acc.sink[i] = sink[i];
       acc.workW[i] = workW;
       acc.carnotW[i] = carnotW;
       acc.tc[i] = tc[i];
@@ -412,7 +491,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
       }
     }
     const vol = roomVolumeByCircuit.get(c.id) ?? 0;
-    const tonnesC = tonnes * (vol / Math.max(volumeM3, 1e-9));
+    const tonnesC = roomTonnesByCircuit.get(c.id) ?? 0;
     circuitFigures.push({
       circuitId: c.id,
       name: c.tag,
@@ -423,8 +502,8 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
         designSweptVolumeM3s: designSwept,
         designCondenserFanW: fanDesignW,
         designHeatRejectedW: rejDesignW,
-        minCondensingC: p.minC,
-        approachK: p.approachK,
+        ...(p.fixedC !== undefined ? { condensingC: p.fixedC } : { minCondensingC: p.minC, approachK: p.approachK }),
+        ...(p.c.arrangement === "transcritical" ? transcriticalInputs(p, tc, getFluid) : {}),
         condenserFanControl: p.op.condenserFanControl,
       }),
     });
@@ -439,7 +518,51 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
   const facility = figures(totals, cal, weather, price, op, volumeM3, tonnes, true, [
     "facility: refrigeration is the rooms' load served; work is every circuit's compressor shaft and pump input (cascade heat is inside the chain)",
   ], { rooms: model.rooms.length, circuits: plans.size, volumeM3, tonnesPerYear: tonnes });
-  void facilityLoad;
+  const hourTrace = (i: number): HourTrace => {
+    const d = cal.day[i];
+    const h = i % 24;
+    const wd = cal.weekday[i];
+    const f = factorsAt(i);
+    const base = new Float64Array(24);
+    return {
+      index: i,
+      label: hourLabel(cal, i),
+      dryBulbC: weather.dryBulbC[i],
+      rhPct: weather.rhPct[i],
+      wetBulbC: wetBulb[i],
+      outdoorEnthalpyKJkg: air[i].enthalpyJkg / 1000,
+      factors: f,
+      rooms: roomModels.map((m) => {
+        const day = evalDay(m, sizedByRoom.get(m.room.id) ?? [], d, base);
+        return {
+          roomId: m.room.id,
+          ...roomHourParts(m, h, wd, f, air[i]),
+          loadW: Math.max(0, base[h] + day.fanHeatW + day.defrostHeatW),
+          fansHeatW: day.fanHeatW,
+          defrostHeatW: day.defrostHeatW,
+          defrostsPerDay: day.defrostsPerDay,
+          moistureKgPerDay: day.moistureKg,
+        };
+      }),
+      circuits: ordered.map((c) => {
+        const a = perCircuitAcc.get(c.id)!;
+        const kW: SplitKWh = { compressors: 0, condenserFans: 0, evaporatorFans: 0, defrost: 0, pumps: 0 };
+        for (const k of SPLIT_KEYS) kW[k] = a[k][i] / 1000;
+        return {
+          circuitId: c.id,
+          name: c.tag,
+          loadW: a.loadW[i],
+          condensingC: Number.isNaN(a.tc[i]) ? null : a.tc[i],
+          sinkC: a.sink[i],
+          partLoadRatio: a.plr[i],
+          powerFraction: a.pf[i],
+          kW,
+          carnotWorkW: a.carnotW[i],
+          workW: a.workW[i],
+        };
+      }),
+    };
+  };
   return {
     engineVersion: ANNUAL_ENGINE_VERSION,
     method,
@@ -448,6 +571,8 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
     facility,
     circuits: model.plant.circuits.flatMap((c) => circuitFigures.filter((f) => f.circuitId === c.id)),
     rooms: roomOut,
+    peakHourTrace: hourTrace(facility.peakHour.index),
+    hourTraces: (opts.traceHours ?? []).map(hourTrace),
     statements: STATEMENTS(op),
     warnings,
   };
@@ -460,6 +585,16 @@ const STATEMENTS = (op: OperationInput) => [
   "Compressors are the design's (swept volume at design); capacity at each hour follows the cycle at that hour's temperatures; part load by the circuit's capacity control.",
   "Costs are in the workspace's currency.",
 ];
+
+/** R744 transcritical: the switch-over (gas-cooler outlet 5 K below critical, the plant engine's rule) and the hours above it. */
+function transcriticalInputs(p: CircuitPlan, tc: Float64Array, getFluid: (id: FluidId) => Fluid): Record<string, number> {
+  // The plant engine's switch-over when it reports one (a user input in later plant versions), else its default rule.
+  const reported = (p.design as { r744?: { switchOverC?: number } }).r744?.switchOverC;
+  const switchC = reported ?? getFluid(p.c.refrigerant).meta.criticalTempK - K0 - 5;
+  let n = 0;
+  for (let i = 0; i < tc.length; i++) if (tc[i] >= switchC && p.load[i] + p.lowHeat[i] > 0) n++;
+  return { switchOverOutletC: switchC, switchOverAmbientC: switchC - p.approachK, transcriticalHours: n };
+}
 
 function sinkOf(p: CircuitPlan, model: FacilityModel, dryBulbC: number, wetBulbC: number): number {
   const hr = p.c.heatRejection;
@@ -512,8 +647,15 @@ function cycleAt(
   try {
     return computeCircuit(p.c, sized, done, { ...cctx, ambient: ambientFor(p, model, tcC) }, prep, []);
   } catch (err) {
+    // Trouble at a condensing temperature the design never saw: the condenser's fields are
+    // blamed by the plant engine, the year's minimum is what set it here; other fields stay.
     if (err instanceof PlantError && p.fixedC === undefined)
-      throw new PlantError(err.code, `at a condensing temperature of ${tcC.toFixed(1)} °C: ${err.message}`, `operation.circuits.${p.c.id}.minCondensingC`, err.allowed);
+      throw new PlantError(
+        err.code,
+        `at a condensing temperature of ${tcC.toFixed(1)} °C: ${err.message}`,
+        err.field.startsWith("plant.condensers.") ? `operation.circuits.${p.c.id}.minCondensingC` : err.field,
+        err.allowed,
+      );
     throw err;
   }
 }
@@ -534,8 +676,10 @@ function buildTable(
   prep: ReturnType<typeof preparePlant>,
   done: ReadonlyMap<string, CircuitResult>,
 ): (tcC: number) => { shaft: number; swept: number; oil: number } {
-  const t0 = Math.floor(tMin / step) * step;
-  const n = Math.max(1, Math.round((Math.ceil(tMax / step) * step - t0) / step)) + 1;
+  // The grid starts at the lowest condensing temperature of the year, so the many hours held
+  // at the minimum (and a constant-temperature year) fall on a node.
+  const t0 = tMin;
+  const n = tMax > tMin ? Math.ceil((tMax - tMin) / step - 1e-9) + 1 : 1;
   const shaft = new Float64Array(n);
   const swept = new Float64Array(n);
   const oil = new Float64Array(n);
@@ -547,12 +691,17 @@ function buildTable(
     swept[k] = x.swept;
     oil[k] = x.oil;
   }
+  // One result object, rewritten per call: the hourly loop allocates nothing.
+  const out = { shaft: shaft[0], swept: swept[0], oil: oil[0] };
   return (tc) => {
+    if (n === 1) return out;
     const u = (tc - t0) / step;
     const k = Math.min(n - 2, Math.max(0, Math.floor(u)));
-    if (n === 1) return { shaft: shaft[0], swept: swept[0], oil: oil[0] };
     const f = u - k;
-    return { shaft: shaft[k] + f * (shaft[k + 1] - shaft[k]), swept: swept[k] + f * (swept[k + 1] - swept[k]), oil: oil[k] + f * (oil[k + 1] - oil[k]) };
+    out.shaft = shaft[k] + f * (shaft[k + 1] - shaft[k]);
+    out.swept = swept[k] + f * (swept[k + 1] - swept[k]);
+    out.oil = oil[k] + f * (oil[k + 1] - oil[k]);
+    return out;
   };
 }
 
@@ -603,6 +752,8 @@ interface Accumulator {
   pf: Float64Array;
   unmetWh: number;
   overHours: number;
+  /** 1 in hours when the load exceeded the compressors' capacity. */
+  over: Uint8Array;
   /** Condensing temperatures counted into the histogram (facility: several circuits). */
   tcList: Float64Array[];
 }
@@ -627,6 +778,7 @@ function newAccumulator(hours: number): Accumulator {
     pf: a(),
     unmetWh: 0,
     overHours: 0,
+    over: new Uint8Array(hours),
     tcList: [tc],
   };
 }
@@ -635,7 +787,11 @@ function addInto(t: Accumulator, a: Accumulator): void {
   for (const k of SPLIT_KEYS) for (let i = 0; i < a[k].length; i++) t[k][i] += a[k][i];
   for (let i = 0; i < a.workW.length; i++) t.workW[i] += a.workW[i];
   t.unmetWh += a.unmetWh;
-  t.overHours = Math.max(t.overHours, a.overHours);
+  t.overHours = 0;
+  for (let i = 0; i < a.over.length; i++) {
+    t.over[i] |= a.over[i];
+    t.overHours += t.over[i];
+  }
 }
 
 /** The facility's refrigeration and Carnot work: per heat-rejection chain, the rooms' air to the chain's sink. */

@@ -25,6 +25,8 @@ import type { OperationInput } from "./schema";
 
 const ONES24 = new Array<number>(24).fill(1);
 const ONES_WEEK = Array.from({ length: 7 }, () => ONES24);
+/** The door-traffic week in use when none is given (every multiplier 1). */
+const DESIGN_WEEK = ONES_WEEK;
 
 /** The multipliers of one room's scheduled parts on one day and hour. */
 export interface HourFactors {
@@ -40,6 +42,8 @@ export interface DoorPart {
   warm: "outdoors" | AirState;
   passages: number[];
   week: number[][];
+  /** A door to another room: its exchange does not change with the weather. */
+  fixed?: { qW: number; moistureKgS: number };
 }
 
 export interface RoomHourModel {
@@ -115,34 +119,56 @@ function diff(a: number[], b: number[]): Float64Array {
 
 /** The week of door-traffic multipliers for a door. */
 function doorWeek(op: OperationInput, doorId: string): number[][] {
-  return op.doorTraffic.byDoor[doorId] ?? op.doorTraffic.all ?? ONES_WEEK;
+  return op.doorTraffic.byDoor[doorId] ?? op.doorTraffic.all ?? DESIGN_WEEK;
 }
 
-/** One door's load on the colder room in one hour, W, and the moisture it brings, kg/s. */
-export function doorHour(d: DoorPart, room: AirState, warm: AirState, passages: number, field: string): { w: number; moistureKgS: number } {
-  if (!(warm.tempC > room.tempC)) return { w: 0, moistureKgS: 0 };
-  const door = d.door;
+/** A load and the moisture it brings in, written in place (the hot loop allocates nothing). */
+export interface LoadAndMoisture {
+  w: number;
+  moistureKgS: number;
+}
+
+/** The fully-open exchange of a door: q_t·D_f·(1 − E) and its moisture per unit open-time factor. */
+function openExchange(door: DoorInput, room: AirState, warm: AirState): { qW: number; moistureKgS: number } {
+  if (!(warm.tempC > room.tempC)) return { qW: 0, moistureKgS: 0 };
   const open = gosneyOlamaFullyOpen(door.widthM, door.heightM, warm, room);
-  if (open.qtW === 0) return { w: 0, moistureKgS: 0 };
+  if (open.qtW === 0) return { qW: 0, moistureKgS: 0 };
   const df = door.flowFactor ?? defaultFlowFactor(warm.tempC - room.tempC);
   let e = door.protectionEffectiveness ?? PROTECTION_EFFECTIVENESS[door.protection];
   if (door.dock) {
     const eSeal = door.dock.sealEffectiveness ?? DOCK_SEAL_EFFECTIVENESS[door.dock.seal];
     e = door.dock.dockedShare * Math.max(eSeal, e) + (1 - door.dock.dockedShare) * e;
   }
-  const dt = (passages * door.openCloseSecondsPerPassage + 60 * (door.minutesHeldOpenPerDay / 24)) / 3600;
-  if (dt > 1 + 1e-9) fail(field, `the door would stand open ${(dt * 60).toFixed(0)} min in an hour (at most 60): lower the door-traffic multiplier`);
-  const k = dt * df * (1 - e);
-  return { w: open.qtW * k, moistureKgS: open.dryAirKgS * k * Math.max(0, warm.humRatio - room.humRatio) };
+  const k = df * (1 - e);
+  return { qW: open.qtW * k, moistureKgS: open.dryAirKgS * k * Math.max(0, warm.humRatio - room.humRatio) };
 }
 
-/** Fresh air in one hour: load W (with the colder-side rule) and moisture kg/s. */
-function ventHour(flowM3PerH: number, share: number, out: AirState, room: AirState, ignoreColder: boolean): { w: number; moistureKgS: number } {
-  if (share === 0) return { w: 0, moistureKgS: 0 };
+/**
+ * One door's load on the colder room in one hour (the ledger's Gosney–Olama line with the
+ * hour's passages), W, and the moisture it brings, kg/s, added into `acc`. A door between two
+ * rooms has a fixed exchange, computed once.
+ */
+export function doorHour(d: DoorPart, room: AirState, warm: AirState, passages: number, weekday: number, hod: number, acc: LoadAndMoisture): void {
+  const x = d.fixed ?? openExchange(d.door, room, warm);
+  if (x.qW === 0) return;
+  const door = d.door;
+  const dt = (passages * door.openCloseSecondsPerPassage + 60 * (door.minutesHeldOpenPerDay / 24)) / 3600;
+  if (dt > 1 + 1e-9)
+    fail(
+      `operation.doorTraffic.${d.week === DESIGN_WEEK ? "all" : `byDoor.${door.id}`}.${weekday}.${hod}`,
+      `door "${door.id}" would stand open ${(dt * 60).toFixed(0)} min in hour ${hod} (at most 60): lower the door-traffic multiplier`,
+    );
+  acc.w += x.qW * dt;
+  acc.moistureKgS += x.moistureKgS * dt;
+}
+
+/** Fresh air in one hour: load W (with the colder-side rule) and moisture kg/s, added into `acc`. */
+function ventHour(flowM3PerH: number, share: number, out: AirState, room: AirState, ignoreColder: boolean, acc: LoadAndMoisture): void {
+  if (share === 0) return;
   const dryAirKgS = ((flowM3PerH / 3600) * out.densityKgM3) / (1 + out.humRatio);
   const running = dryAirKgS * (out.enthalpyJkg - room.enthalpyJkg);
-  const w = running < 0 && ignoreColder ? 0 : running * share;
-  return { w, moistureKgS: dryAirKgS * share * Math.max(0, out.humRatio - room.humRatio) };
+  acc.w += running < 0 && ignoreColder ? 0 : running * share;
+  acc.moistureKgS += dryAirKgS * share * Math.max(0, out.humRatio - room.humRatio);
 }
 
 /**
@@ -172,7 +198,7 @@ export function buildRoomHourModel(room: RoomInput, index: number, ctx: LedgerCo
     const warm = otherId === "outdoors" ? "outdoors" : ctx.roomAir.get(otherId);
     if (!warm) continue;
     const passages = Array.from({ length: 24 }, (_, h) => (door.passagesByHour ? door.passagesByHour[h] : (door.passagesPerDay ?? 0) / 24));
-    doors.push({ door, index: di, warm, passages, week: doorWeek(op, door.id) });
+    doors.push({ door, index: di, warm, passages, week: doorWeek(op, door.id), fixed: warm === "outdoors" ? undefined : openExchange(door, air, warm) });
   }
   const vent = room.ventilation
     ? { flowM3PerH: room.ventilation.flowM3PerH ?? (room.ventilation.airChangesPerHour as number) * room.lengthM * room.widthM * room.heightM, share: onShares(room.ventilation.startHour, room.ventilation.hoursPerDay) }
@@ -196,7 +222,8 @@ export function buildRoomHourModel(room: RoomInput, index: number, ctx: LedgerCo
   const out = ctx.site.outdoor;
   let moisture = 0;
   for (let h = 0; h < 24; h++) {
-    const w = weatherParts(model, h, out, DESIGN_DAY);
+    const w: LoadAndMoisture = { w: 0, moistureKgS: 0 };
+    weatherParts(model, h, out, DESIGN_DAY, w);
     moisture += w.moistureKgS * 3600;
     model.residual[h] = base[h] - product[h] - people[h] - lights[h] - w.w;
   }
@@ -207,36 +234,24 @@ export function buildRoomHourModel(room: RoomInput, index: number, ctx: LedgerCo
 /** The weekday index meaning "the design day" (every door-traffic multiplier 1). */
 export const DESIGN_DAY = -1;
 
-/** The weather-dependent parts of a room at one hour of the day: surfaces, doors, fresh air. */
-export function weatherParts(m: RoomHourModel, hod: number, out: AirState, weekday: number): { w: number; moistureKgS: number } {
+/** The weather-dependent parts of a room at one hour of the day (surfaces, doors, fresh air), written into `acc`. */
+export function weatherParts(m: RoomHourModel, hod: number, out: AirState, weekday: number, acc: LoadAndMoisture): void {
   const tRoom = m.air.tempC;
   let w = 0;
-  let moisture = 0;
   for (const s of m.surfaces) {
     const q = s.ua * (out.tempC + s.solarK - tRoom);
     w += q < 0 && m.ignoreColder ? 0 : q;
   }
-  for (const d of m.doors) {
-    const warm = d.warm === "outdoors" ? out : d.warm;
-    const r = doorHour(d, m.air, warm, d.passages[hod] * (weekday === DESIGN_DAY ? 1 : d.week[weekday][hod]), `operation.doorTraffic.byDoor.${d.door.id}.${weekday}.${hod}`);
-    w += r.w;
-    moisture += r.moistureKgS;
-  }
-  if (m.vent) {
-    const r = ventHour(m.vent.flowM3PerH, m.vent.share[hod], out, m.air, m.ignoreColder);
-    w += r.w;
-    moisture += r.moistureKgS;
-  }
-  return { w, moistureKgS: moisture };
+  acc.w = w;
+  acc.moistureKgS = 0;
+  for (const d of m.doors) doorHour(d, m.air, d.warm === "outdoors" ? out : d.warm, d.passages[hod] * (weekday === DESIGN_DAY ? 1 : d.week[weekday][hod]), weekday, hod, acc);
+  if (m.vent) ventHour(m.vent.flowM3PerH, m.vent.share[hod], out, m.air, m.ignoreColder, acc);
 }
 
-/** A room's load (without evaporator fans and defrost) in one hour, W, and the moisture brought in, kg/s. */
-export function fastRoomHour(m: RoomHourModel, hod: number, weekday: number, f: HourFactors, out: AirState): { w: number; moistureKgS: number } {
-  const wp = weatherParts(m, hod, out, weekday);
-  return {
-    w: m.residual[hod] + m.product[hod] * f.product + m.people[hod] * f.people + m.lights[hod] * f.lights + wp.w,
-    moistureKgS: wp.moistureKgS,
-  };
+/** A room's load (without evaporator fans and defrost) in one hour, W, and the moisture brought in, kg/s, written into `acc`. */
+export function fastRoomHour(m: RoomHourModel, hod: number, weekday: number, f: HourFactors, out: AirState, acc: LoadAndMoisture): void {
+  weatherParts(m, hod, out, weekday, acc);
+  acc.w += m.residual[hod] + m.product[hod] * f.product + m.people[hod] * f.people + m.lights[hod] * f.lights;
 }
 
 /**
@@ -257,4 +272,33 @@ export function directRoomHour(m: RoomHourModel, hod: number, weekday: number, f
   );
   const hourCtx: LedgerContext = { ...ctx, site: { ...ctx.site, outdoor: out, designDryBulbC: out.tempC }, doorsByRoom };
   return computeRoomLoad({ ...scaledRoom(m.room, f), ...NO_FEEDBACK }, hourCtx).hourly[hod];
+}
+
+/** A room's load in one hour taken apart, W (for the hour trace): the parts `fastRoomHour` adds up. */
+export function roomHourParts(m: RoomHourModel, hod: number, weekday: number, f: HourFactors, out: AirState) {
+  const tRoom = m.air.tempC;
+  let surfacesW = 0;
+  for (const s of m.surfaces) {
+    const q = s.ua * (out.tempC + s.solarK - tRoom);
+    surfacesW += q < 0 && m.ignoreColder ? 0 : q;
+  }
+  const doors = m.doors.map((d) => {
+    const passages = d.passages[hod] * d.week[weekday][hod];
+    const r: LoadAndMoisture = { w: 0, moistureKgS: 0 };
+    doorHour(d, m.air, d.warm === "outdoors" ? out : d.warm, passages, weekday, hod, r);
+    return { doorId: d.door.id, passages, loadW: r.w, moistureKgPerH: r.moistureKgS * 3600 };
+  });
+  const all: LoadAndMoisture = { w: 0, moistureKgS: 0 };
+  weatherParts(m, hod, out, weekday, all);
+  const doorsW = doors.reduce((a, d) => a + d.loadW, 0);
+  return {
+    otherW: m.residual[hod],
+    productW: m.product[hod] * f.product,
+    peopleW: m.people[hod] * f.people,
+    lightsW: m.lights[hod] * f.lights,
+    outsideSurfacesW: surfacesW,
+    doorsW,
+    freshAirW: all.w - surfacesW - doorsW,
+    doors,
+  };
 }
