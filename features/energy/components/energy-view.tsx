@@ -372,6 +372,8 @@ function Results({
         )}
       </section>
 
+      {a.peakHourTrace ? <PeakHour a={a} s={s} /> : null}
+
       {a.warnings.length ? (
         <section aria-labelledby="warn-h">
           <h3 id="warn-h" className="mb-1 text-sm font-semibold text-muted">
@@ -397,5 +399,82 @@ function Results({
         </p>
       </details>
     </div>
+  );
+}
+
+/** The facility's peak hour taken apart: the weather and schedules of that hour, each circuit and each room. */
+function PeakHour({ a, s }: { a: AnnualResult; s: UnitSystem }) {
+  const t = a.peakHourTrace;
+  const roomName = new Map(a.rooms.map((r) => [r.roomId, r.name]));
+  return (
+    <details className="text-xs" data-testid="peak-hour-trace">
+      <summary className="cursor-pointer text-sm font-semibold text-muted">The peak hour taken apart: {t.label}</summary>
+      <p className="mt-1">
+        Outdoors {fmt.temp(t.dryBulbC, s)}, {fmt.number(t.rhPct, 0)} % RH, wet bulb {fmt.temp(t.wetBulbC, s)}; schedule multipliers: product × {fmt.number(t.factors.product, 2)}, people ×{" "}
+        {fmt.number(t.factors.people, 2)}, lights × {fmt.number(t.factors.lights, 2)}.
+      </p>
+      <table className="mt-2">
+        <thead className="text-muted">
+          <tr className="border-b border-line">
+            <th className="py-1 pr-3 text-left font-normal">Circuit</th>
+            <th className="px-2 text-right font-normal">Load</th>
+            <th className="px-2 text-right font-normal">Condensing</th>
+            <th className="px-2 text-right font-normal">Sink</th>
+            <th className="px-2 text-right font-normal">Part load</th>
+            <th className="px-2 text-right font-normal">Power fraction</th>
+            {SPLIT.map((k) => (
+              <th key={k.key} className="px-2 text-right font-normal">
+                {k.label}
+              </th>
+            ))}
+            <th className="px-2 text-right font-normal">Work ÷ Carnot work</th>
+          </tr>
+        </thead>
+        <tbody className="font-mono">
+          {t.circuits.map((c) => (
+            <tr key={c.circuitId} className="border-b border-line/60">
+              <td className="py-1 pr-3 font-sans">{c.name}</td>
+              <td className="px-2 text-right">{fmt.power(c.loadW, s)}</td>
+              <td className="px-2 text-right">{c.condensingC === null ? "—" : fmt.temp(c.condensingC, s)}</td>
+              <td className="px-2 text-right">{fmt.temp(c.sinkC, s)}</td>
+              <td className="px-2 text-right">{fmt.percent(c.partLoadRatio)}</td>
+              <td className="px-2 text-right">{fmt.percent(c.powerFraction)}</td>
+              {SPLIT.map((k) => (
+                <td key={k.key} className="px-2 text-right">
+                  {fmt.power(c.kW[k.key] * 1000, s, "electrical")}
+                </td>
+              ))}
+              <td className="px-2 text-right">{c.carnotWorkW > 0 ? fmt.number(c.workW / c.carnotWorkW, 2) : "—"}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <table className="mt-2">
+        <thead className="text-muted">
+          <tr className="border-b border-line">
+            <th className="py-1 pr-3 text-left font-normal">Room</th>
+            <th className="px-2 text-right font-normal">Load served</th>
+            <th className="px-2 text-right font-normal">Outside surfaces</th>
+            <th className="px-2 text-right font-normal">Doors</th>
+            <th className="px-2 text-right font-normal">Product</th>
+            <th className="px-2 text-right font-normal">Fans</th>
+            <th className="px-2 text-right font-normal">Defrosts that day</th>
+          </tr>
+        </thead>
+        <tbody className="font-mono">
+          {t.rooms.map((r) => (
+            <tr key={r.roomId} className="border-b border-line/60">
+              <td className="py-1 pr-3 font-sans">{roomName.get(r.roomId) ?? r.roomId}</td>
+              <td className="px-2 text-right">{fmt.power(r.loadW, s)}</td>
+              <td className="px-2 text-right">{fmt.power(r.outsideSurfacesW, s)}</td>
+              <td className="px-2 text-right">{fmt.power(r.doorsW, s)}</td>
+              <td className="px-2 text-right">{fmt.power(r.productW, s)}</td>
+              <td className="px-2 text-right">{fmt.power(r.fansHeatW, s)}</td>
+              <td className="px-2 text-right">{fmt.number(r.defrostsPerDay, 1)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </details>
   );
 }
