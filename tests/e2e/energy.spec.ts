@@ -70,6 +70,46 @@ test.describe("designer", () => {
     await expect(page.getByTestId("annual-cost")).toContainText(/€[1-9][\d,]*/, { timeout: 60_000 });
     await expect(page.getByText("Out of date")).toHaveCount(0, { timeout: 30_000 });
     await shot(page, "energy-designer-priced");
+
+    // monthly means instead of a file: a value out of range is named beside its month, then the year is built
+    await page.getByRole("button", { name: "Enter monthly means instead" }).click();
+    const months = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
+    const means = [2, 3, 6, 9, 13, 16, 19, 18, 15, 11, 6, 3];
+    for (const [i, m] of months.entries()) {
+      await page.getByLabel(`${m} mean dry bulb`).fill(String(means[i]));
+      await page.getByLabel(`${m} mean daily range`).fill("8");
+      await page.getByLabel(`${m} mean relative humidity`).fill(i === 2 ? "120" : "78");
+    }
+    await page.getByLabel("Name of the climate").fill("Invented test climate");
+    await page.getByRole("button", { name: "Build the year from these means" }).click();
+    await expect(page.getByText("March mean relative humidity must be between 1 and 100 %")).toBeVisible();
+    await shot(page, "energy-monthly-error");
+    await page.getByLabel("March mean relative humidity").fill("80");
+    await page.getByRole("button", { name: "Build the year from these means" }).click();
+    await expect(page.getByTestId("weather-source")).toContainText("Invented test climate — sine-day year 2025 from monthly means (an approximation)");
+    await expect(page.getByTestId("weather-source")).toContainText("built from monthly means (an approximation)");
+    await expect(page.getByText("Out of date")).toHaveCount(0, { timeout: 60_000 });
+    await expect(page.getByTestId("annual-kwh")).toContainText(/MWh\(e\)/);
+  });
+});
+
+test.describe("owner", () => {
+  test.use({ storageState: stateOf("owner") });
+
+  test("sets the workspace currency, and the running cost is shown in it", async ({ page }) => {
+    await page.goto(`/w/${WS}/settings`);
+    await page.getByLabel("Currency of running costs (ISO 4217)").selectOption("CHF");
+    await page.getByRole("button", { name: "Save" }).click();
+    await expect(page.getByRole("status").filter({ hasText: "Currency: CHF" })).toBeVisible();
+    await page.goto(`/w/${WS}/f/${facilityId}/energy`);
+    await expect(page.getByTestId("annual-cost")).toContainText("CHF");
+    await expect(page.getByLabel("Price", { exact: true })).toBeVisible();
+    await expect(page.getByText("Electricity tariff (CHF)")).toBeVisible();
+    // back to the demo's currency for the other specs
+    await page.goto(`/w/${WS}/settings`);
+    await page.getByLabel("Currency of running costs (ISO 4217)").selectOption("EUR");
+    await page.getByRole("button", { name: "Save" }).click();
+    await expect(page.getByRole("status").filter({ hasText: "Currency: EUR" })).toBeVisible();
   });
 });
 
@@ -79,7 +119,7 @@ test.describe("viewer", () => {
   test("reads the year and cannot edit the weather, the tariff or run it", async ({ page }) => {
     await page.goto(`/w/${WS}/f/${facilityId}/energy`);
     await expect(page.getByTestId("annual-kwh")).toContainText(/MWh\(e\)/, { timeout: 30_000 });
-    await expect(page.getByTestId("weather-source")).toContainText("invented-weather.csv");
+    await expect(page.getByTestId("weather-source")).toContainText("from monthly means (an approximation)");
     await expect(page.getByRole("button", { name: "Run the year" })).toHaveCount(0);
     await expect(page.getByLabel("Weather file (.csv or .epw)")).toHaveCount(0);
     await expect(page.getByRole("button", { name: "Save tariff and operation" })).toHaveCount(0);
@@ -88,5 +128,8 @@ test.describe("viewer", () => {
     const r = await page.request.post(`/api/v1/workspaces/${WS}/facilities/${facilityId}/energy`);
     expect(r.status()).toBe(403);
     await shot(page, "energy-viewer");
+    await page.goto(`/w/${WS}/settings`);
+    await expect(page.getByLabel("Currency of running costs (ISO 4217)")).toBeDisabled();
+    await expect(page.getByText("Only an owner changes the workspace's settings.")).toBeVisible();
   });
 });

@@ -31,7 +31,8 @@ function ErrorList({ error }: { error: { message: string; fields?: Problem[] } }
         <ul className="mt-1 max-h-48 list-disc overflow-auto pl-5 text-xs">
           {error.fields.map((f) => (
             <li key={f.field + f.message}>
-              {f.field}: {f.message}
+              {f.field ? `${f.field}: ` : ""}
+              {f.message}
             </li>
           ))}
         </ul>
@@ -186,6 +187,12 @@ export function WeatherPanel({ ws, facilityId, weather, canEdit, s }: { ws: stri
 type MonthlyInitial = { year?: number; label?: string; meanDryBulbC: number[]; dailyRangeK: number[]; meanRhPct: number[] };
 
 const MONTHLY_RANGES = { meanDryBulbC: [-50, 50], dailyRangeK: [0, 30], meanRhPct: [1, 100] } as const;
+const MONTHLY_NAMES: Record<string, string> = { meanDryBulbC: "mean dry bulb", dailyRangeK: "mean daily range", meanRhPct: "mean relative humidity", label: "name of the climate" };
+/** "meanRhPct.2" → "March mean relative humidity" (the server names fields by path). */
+function monthlyField(key: string): string {
+  const [name, i] = key.split(".");
+  return i !== undefined && MONTHS[Number(i)] ? `${MONTHS[Number(i)]} ${MONTHLY_NAMES[name] ?? name}` : (MONTHLY_NAMES[name] ?? name);
+}
 
 /** Twelve months of mean dry bulb, mean daily range and mean RH, typed in the user's units and sent in SI. */
 function MonthlyForm({ url, s, L, initial, onSaved }: { url: string; s: UnitSystem; L: Record<string, string>; initial: MonthlyInitial | null; onSaved: (label: string) => void }) {
@@ -302,7 +309,7 @@ function MonthlyForm({ url, s, L, initial, onSaved }: { url: string; s: UnitSyst
           ))}
         </tbody>
       </table>
-      {top ? <ErrorList error={{ message: top, fields: Object.entries(errors).map(([field, message]) => ({ field, message })) }} /> : null}
+      {top ? <ErrorList error={{ message: top, fields: Object.entries(errors).map(([field, message]) => ({ field: message.startsWith(monthlyField(field).split(" ")[0]) ? "" : monthlyField(field), message })) }} /> : null}
       <div>
         <Button type="submit" variant="primary" disabled={busy}>
           {busy ? "Building the year…" : "Build the year from these means"}
