@@ -1,7 +1,8 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import { facilityModelSchema, type FacilityModelRaw } from "../model";
 import { loadFluid } from "../thermo";
-import { runAnnual, sineDayYear } from ".";
+import { PlantError } from "../plant/errors";
+import { constantYear, runAnnual, sineDayYear } from ".";
 
 /**
  * A small invented plant with the arrangements whose temperatures do not simply follow one
@@ -83,5 +84,31 @@ describe("cascade and transcritical through the year", () => {
     expect(Number(tc.trace.inputs.transcriticalHours)).toBeLessThan(8760);
     // Seasonal COP below the seasonal Carnot COP for each circuit and the facility.
     for (const f of [r.facility, ...r.circuits]) expect(f.seasonalCOP!).toBeLessThan(f.seasonalCarnotCOP!);
+  });
+  it("a subcritical-only CO2 circuit in an hour too warm to condense is an error naming the condenser, not a number", () => {
+    const m = facilityModelSchema.parse({
+      ...RAW,
+      site: { ...RAW.site, designDryBulbC: 15 },
+      rooms: [room("chill-co2", 4)],
+      doors: [],
+      plant: {
+        evaporators: [{ id: "e", tag: "EV-1", roomId: "chill-co2", circuitId: "c" }],
+        circuits: [{ id: "c", tag: "C-1", refrigerant: "R744", compressor: { type: "reciprocating" }, heatRejection: { to: "condenser", condenserId: "cd" } }],
+        condensers: [{ id: "cd", tag: "CD-1", type: "air-cooled" }],
+      },
+    });
+    const w = constantYear(10, 60);
+    w.dryBulbC[4000] = 25;
+    let err: unknown;
+    try {
+      runAnnual(m, w);
+    } catch (e) {
+      err = e;
+    }
+    expect(err).toBeInstanceOf(PlantError);
+    expect((err as PlantError).field).toBe("plant.condensers.0.approachK");
+    // The table's first failing node names the first hour that needs it: 4000 is Jun 16 16:00 (a Saturday in a year starting on a Monday).
+    expect((err as PlantError).message).toMatch(/critical temperature/);
+    expect((err as PlantError).message).toMatch(/needed from Jun 16 \(Sat\) 16:00 \(condensing 37\.0 °C\) on/);
   });
 });

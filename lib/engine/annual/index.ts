@@ -425,7 +425,12 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
         if (tc[i] > tMax) tMax = tc[i];
       }
     }
-    const table = method === "fast" && tMin <= tMax ? buildTable(p, tMin, tMax, step, model, cctxBase, prep, lowDone) : undefined;
+    // For errors: the first loaded hour at or above a condensing temperature.
+    const hourAt = (t: number) => {
+      for (let i = 0; i < hours; i++) if (tc[i] >= t - 1e-9 && p.load[i] + p.lowHeat[i] > 0) return `${hourLabel(cal, i)} (condensing ${tc[i].toFixed(1)} °C)`;
+      return "no hour";
+    };
+    const table = method === "fast" && tMin <= tMax ? buildTable(p, tMin, tMax, step, model, cctxBase, prep, lowDone, hourAt) : undefined;
     const designSwept = p.design.stages[0].sweptVolumeM3s;
     const fanDesignW = p.design.condenserFanW;
     const rejDesignW = p.design.heatRejectedW;
@@ -498,6 +503,12 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
       ...figures(acc, cal, weather, price, op, vol, tonnesC, p.c.heatRejection.to === "condenser", [
         `capacity control: ${controlSource(p.control)}`,
         p.fixedC !== undefined ? `condensing held at ${p.fixedC} °C all year` : `condensing = sink + ${p.approachK} K, not below ${p.minC} °C`,
+        {
+          speed: `condenser fans speed-controlled: P = P_design·x³ (fan laws) above ${p.op.condenserFanMinSpeed} of full speed, cycling below`,
+          staged: `condenser fans in ${p.op.condenserFanStages} on/off stages: P = P_design·⌈x·N⌉/N`,
+          proportional: "condenser fans in proportion to the airflow needed: P = P_design·x",
+        }[p.op.condenserFanControl] + "; x = (Q_rej/Q_rej,design)·(approach/(T_cond − T_sink))",
+        "compressor capacity = design swept volume ÷ swept volume per W at the hour's temperatures; PLR = (load + pump input) ÷ capacity",
       ], {
         designSweptVolumeM3s: designSwept,
         designCondenserFanW: fanDesignW,
@@ -514,7 +525,7 @@ export function runAnnual(model: FacilityModel, weather: WeatherYear, opts: Annu
     totals.loadW[i] = 0;
     totals.carnotW[i] = 0;
   }
-  facilityChains(plans, perCircuitAcc, totals, hours, model, weather, wetBulb);
+  facilityChains(plans, perCircuitAcc, totals, hours);
   const facility = figures(totals, cal, weather, price, op, volumeM3, tonnes, true, [
     "facility: refrigeration is the rooms' load served; work is every circuit's compressor shaft and pump input (cascade heat is inside the chain)",
   ], { rooms: model.rooms.length, circuits: plans.size, volumeM3, tonnesPerYear: tonnes });
@@ -647,13 +658,14 @@ function cycleAt(
   try {
     return computeCircuit(p.c, sized, done, { ...cctx, ambient: ambientFor(p, model, tcC) }, prep, []);
   } catch (err) {
-    // Trouble at a condensing temperature the design never saw: the condenser's fields are
-    // blamed by the plant engine, the year's minimum is what set it here; other fields stay.
+    // Trouble at a condensing temperature the design never saw. The plant engine blames the
+    // condenser's fields; when the year's minimum set that temperature, the minimum is named
+    // instead (a hot hour keeps the condenser's field). Other fields stay as they are.
     if (err instanceof PlantError && p.fixedC === undefined)
       throw new PlantError(
         err.code,
         `at a condensing temperature of ${tcC.toFixed(1)} °C: ${err.message}`,
-        err.field.startsWith("plant.condensers.") ? `operation.circuits.${p.c.id}.minCondensingC` : err.field,
+        err.field.startsWith("plant.condensers.") && tcC <= p.minC + 1e-9 ? `operation.circuits.${p.c.id}.minCondensingC` : err.field,
         err.allowed,
       );
     throw err;
@@ -675,16 +687,27 @@ function buildTable(
   cctx: CircuitContext,
   prep: ReturnType<typeof preparePlant>,
   done: ReadonlyMap<string, CircuitResult>,
+  hourAt: (tcC: number) => string,
 ): (tcC: number) => { shaft: number; swept: number; oil: number } {
   // The grid starts at the lowest condensing temperature of the year, so the many hours held
   // at the minimum (and a constant-temperature year) fall on a node.
+  // Nodes exactly at both ends, evenly spaced no wider than `step` (no node beyond the hottest hour).
   const t0 = tMin;
   const n = tMax > tMin ? Math.ceil((tMax - tMin) / step - 1e-9) + 1 : 1;
+  const dt = n > 1 ? (tMax - tMin) / (n - 1) : step;
   const shaft = new Float64Array(n);
   const swept = new Float64Array(n);
   const oil = new Float64Array(n);
   for (let k = 0; k < n; k++) {
-    const r = cycleAt(p, t0 + k * step, p.sized, done, model, cctx, prep);
+    const t = k === n - 1 ? tMax : t0 + k * dt;
+    let r: CircuitResult | undefined;
+    try {
+      r = cycleAt(p, t, p.sized, done, model, cctx, prep);
+    } catch (err) {
+      // Name the first hour that needs this node (the hours between it and the node below).
+      if (err instanceof PlantError) throw new PlantError(err.code, `${err.message} — needed from ${hourAt(k > 0 ? t - dt + 1e-6 : t)} on`, err.field, err.allowed);
+      throw err;
+    }
     if (!r) throw new PlantError("INPUT_OUT_OF_RANGE", `${p.c.tag}: no load at design to tabulate`, `plant.circuits.${p.index}`);
     const x = ratiosOf(r);
     shaft[k] = x.shaft;
@@ -695,7 +718,7 @@ function buildTable(
   const out = { shaft: shaft[0], swept: swept[0], oil: oil[0] };
   return (tc) => {
     if (n === 1) return out;
-    const u = (tc - t0) / step;
+    const u = (tc - t0) / dt;
     const k = Math.min(n - 2, Math.max(0, Math.floor(u)));
     const f = u - k;
     out.shaft = shaft[k] + f * (shaft[k + 1] - shaft[k]);
@@ -800,9 +823,6 @@ function facilityChains(
   accs: Map<string, Accumulator>,
   totals: Accumulator,
   hours: number,
-  _model: FacilityModel,
-  _weather: WeatherYear,
-  _wet: Float64Array,
 ): void {
   const top = (id: string): string => {
     let cur = plans.get(id)!;
