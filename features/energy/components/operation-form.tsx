@@ -303,7 +303,7 @@ export function OperationForm({
       {circuits.length ? (
         <fieldset className="flex flex-col gap-2 rounded border border-line p-2" disabled={!canEdit}>
           <legend className="px-1 text-xs font-semibold">Circuits: part load and condensing</legend>
-          <table className="text-xs">
+          <table className="self-start text-xs">
             <thead className="text-muted">
               <tr>
                 <th className="pr-2 text-left font-normal">Circuit</th>

@@ -289,7 +289,7 @@ function MonthlyForm({ url, s, L, initial, onSaved }: { url: string; s: UnitSyst
           <input id="monthly-year" inputMode="numeric" value={year} onChange={(e) => setYear(e.target.value)} aria-invalid={errors.year ? true : undefined} className="w-24 rounded border border-line bg-surface px-2 py-1 text-sm" />
         </div>
       </div>
-      <table className="text-xs">
+      <table className="self-start text-xs">
         <thead className="text-muted">
           <tr>
             <th className="pr-2 text-left font-normal">Month</th>
