@@ -16,7 +16,7 @@ import { env } from "@/lib/env";
 import type { CurrentUser } from "@/lib/session";
 import { stopSender } from "@/lib/jobs/queue";
 import { ANNUAL_ENGINE_VERSION } from "@/lib/engine/annual";
-import { createFacility } from "@/features/facilities/queries";
+import { createFacility, duplicateFacility } from "@/features/facilities/queries";
 import { inputHashOf, loadFacilityModel, saveFacilityModel } from "@/features/facilities/model";
 import type { ModelDoc } from "@/features/facilities/engine-model";
 import { runAnnualJob } from "@/features/energy/job";
@@ -212,6 +212,18 @@ describe("the annual run", () => {
     const none = await call(energyRoute, "POST", designer, { ws: slug, id: other.id });
     expect(none.status).toBe(400);
     expect(none.body.error).toMatchObject({ field: "weather", message: expect.stringMatching(/no weather year yet/) });
+  });
+});
+
+describe("duplicating a facility", () => {
+  it("the copy keeps the newest weather year (same site), as its own row", async () => {
+    const [newest] = (await db.select().from(weatherYears).where(eq(weatherYears.facilityId, facilityId))).sort((a, b) => +b.createdAt - +a.createdAt);
+    const copy = await duplicateFacility(wsId, owner.id, facilityId, "Energy facility copy");
+    const rows = await db.select().from(weatherYears).where(eq(weatherYears.facilityId, copy.id));
+    expect(rows).toHaveLength(1);
+    expect(rows[0].id).not.toBe(newest.id);
+    expect(rows[0]).toMatchObject({ label: newest.label, kind: newest.kind, year: newest.year, hours: newest.hours, workspaceId: wsId });
+    expect(rows[0].dryBulbC).toEqual(newest.dryBulbC);
   });
 });
 
