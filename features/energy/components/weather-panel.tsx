@@ -1,5 +1,6 @@
 "use client";
-import { useState } from "react";
+import { useEffect, useState } from "react";
+import { CartesianGrid, ComposedChart, Legend, Line, Tooltip, XAxis, YAxis } from "recharts";
 import { useRouter } from "next/navigation";
 import { Button } from "@/components/ui/button";
 import { ApiError, api } from "@/lib/api-client";
@@ -54,7 +55,18 @@ export function WeatherPanel({ ws, facilityId, weather, canEdit, s }: { ws: stri
   const [error, setError] = useState<{ message: string; fields?: Problem[] } | null>(null);
   const [done, setDone] = useState<string | null>(null);
   const [showMonthly, setShowMonthly] = useState(false);
+  const [inBrowser, setInBrowser] = useState(false);
+  useEffect(() => {
+    const t = setTimeout(() => setInBrowser(true), 0);
+    return () => clearTimeout(t);
+  }, []);
   const L = UNIT_LABELS[s];
+  const chart = (weather?.summary.months ?? []).map((m) => ({
+    month: MONTHS[m.month - 1].slice(0, 3),
+    min: Math.round(convert.tempToDisplay(m.minDryBulbC, s) * 10) / 10,
+    mean: Math.round(convert.tempToDisplay(m.meanDryBulbC, s) * 10) / 10,
+    max: Math.round(convert.tempToDisplay(m.maxDryBulbC, s) * 10) / 10,
+  }));
 
   async function send() {
     if (!file) return;
@@ -93,8 +105,22 @@ export function WeatherPanel({ ws, facilityId, weather, canEdit, s }: { ws: stri
               ))}
             </ul>
           ) : null}
+          <div className="w-full max-w-3xl" role="img" aria-label={`Each month's lowest, mean and highest dry bulb of this weather year, in ${L.temp}; the table below lists the same values.`}>
+            {inBrowser && (
+              <ComposedChart responsive style={{ width: "100%", height: 200 }} data={chart} margin={{ top: 8, right: 16, left: 8, bottom: 4 }}>
+                <CartesianGrid strokeDasharray="3 3" stroke="var(--line)" />
+                <XAxis dataKey="month" tick={{ fontSize: 11, fill: "var(--muted)" }} />
+                <YAxis tick={{ fontSize: 11, fill: "var(--muted)" }} label={{ value: L.temp, angle: -90, position: "insideLeft", fill: "var(--muted)", fontSize: 11 }} />
+                <Tooltip contentStyle={{ background: "var(--surface)", border: "1px solid var(--line)", fontSize: 12 }} formatter={(v, n) => [`${fmt.number(Number(v), 1)} ${L.temp}`, n === "min" ? "Lowest" : n === "max" ? "Highest" : "Mean"]} />
+                <Legend wrapperStyle={{ fontSize: 11 }} formatter={(n) => (n === "min" ? "Lowest" : n === "max" ? "Highest" : "Mean dry bulb")} />
+                <Line dataKey="max" stroke="oklch(0.62 0.15 30)" strokeWidth={1.5} dot={false} isAnimationActive={false} />
+                <Line dataKey="mean" stroke="oklch(0.55 0.05 250)" strokeWidth={2} dot isAnimationActive={false} />
+                <Line dataKey="min" stroke="oklch(0.55 0.12 230)" strokeWidth={1.5} dot={false} isAnimationActive={false} />
+              </ComposedChart>
+            )}
+          </div>
           <details>
-            <summary className="cursor-pointer text-xs text-muted">Monthly means of this year</summary>
+            <summary className="cursor-pointer text-xs text-muted">Monthly means of this year (table)</summary>
             <table className="mt-1 text-xs" data-testid="weather-months">
               <thead className="text-muted">
                 <tr className="border-b border-line">
