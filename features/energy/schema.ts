@@ -41,6 +41,11 @@ export interface WeatherDto {
   summary: WeatherSummary;
 }
 
+/** How a source is described beside its label ("" where the label says it already). */
+export function sourceWords(kind: WeatherKind, label: string): string {
+  return kind === "monthly" && /approximation/.test(label) ? "" : SOURCE_WORDS[kind];
+}
+
 export const SOURCE_WORDS: Record<WeatherKind, string> = {
   file: "uploaded hourly file",
   monthly: "built from monthly means (an approximation)",

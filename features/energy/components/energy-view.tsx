@@ -8,7 +8,7 @@ import { fmt, convert, UNIT_LABELS, type UnitSystem } from "@/lib/units";
 import { JobProgress, type JobDto } from "@/features/jobs";
 import type { AnnualFigures, AnnualResult } from "@/lib/engine/annual";
 import type { EnergyViewDto } from "../queries";
-import { SOURCE_WORDS, type WeatherKind } from "../schema";
+import { sourceWords, type WeatherKind } from "../schema";
 
 const MONTHS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"];
 const SPLIT: { key: keyof AnnualFigures["split"]; label: string; colour: string }[] = [
@@ -115,7 +115,7 @@ export function EnergyView({ ws, facilityId, initial, s }: { ws: string; facilit
         Weather:{" "}
         {data.weather ? (
           <>
-            <strong>{data.weather.label}</strong> <span className="text-muted">— {SOURCE_WORDS[data.weather.kind]}, {data.weather.hours} hours</span>
+            <strong>{data.weather.label}</strong> <span className="text-muted">— {[sourceWords(data.weather.kind, data.weather.label), `${data.weather.hours} hours`].filter(Boolean).join(", ")}</span>
           </>
         ) : (
           <span className="text-muted">none yet. {data.canRun ? "Upload an hourly file or enter monthly means below." : "An owner or designer gives the facility a weather year."}</span>
@@ -394,7 +394,7 @@ function Results({
           ))}
         </ul>
         <p className="mt-2" data-testid="energy-stamps">
-          Computed for model version {r.modelVersion} (input {r.inputHash}) with the weather &ldquo;{r.weather?.label ?? "a weather year since replaced"}&rdquo;{r.weather ? ` (${SOURCE_WORDS[r.weather.kind as WeatherKind]})` : ""}, engine {r.engineVersion}, {a.method} method, {a.hours} hours
+          Computed for model version {r.modelVersion} (input {r.inputHash}) with the weather &ldquo;{r.weather?.label ?? "a weather year since replaced"}&rdquo;{r.weather && sourceWords(r.weather.kind as WeatherKind, r.weather.label) ? ` (${sourceWords(r.weather.kind as WeatherKind, r.weather.label)})` : ""}, engine {r.engineVersion}, {a.method} method, {a.hours} hours
           {r.computeMs !== null ? `, in ${r.computeMs} ms` : ""}, on {new Date(r.createdAt).toISOString().slice(0, 16).replace("T", " ")} UTC.
         </p>
       </details>

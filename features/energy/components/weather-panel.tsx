@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { Button } from "@/components/ui/button";
 import { ApiError, api } from "@/lib/api-client";
 import { convert, fmt, UNIT_LABELS, type UnitSystem } from "@/lib/units";
-import { SOURCE_WORDS, type WeatherDto } from "../schema";
+import { sourceWords, type WeatherDto } from "../schema";
 
 const MONTHS = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
 type Problem = { field: string; message: string };
@@ -92,7 +92,8 @@ export function WeatherPanel({ ws, facilityId, weather, canEdit, s }: { ws: stri
       {weather ? (
         <div className="flex flex-col gap-2 text-sm">
           <p>
-            <strong>{weather.label}</strong> — {SOURCE_WORDS[weather.kind]}; {weather.year}, {weather.hours} hours, 1 January a{" "}
+            <strong>{weather.label}</strong> — {sourceWords(weather.kind, weather.label) ? `${sourceWords(weather.kind, weather.label)}; ` : ""}
+            {weather.year}, {weather.hours} hours, 1 January a{" "}
             {["Monday", "Tuesday", "Wednesday", "Thursday", "Friday", "Saturday", "Sunday"][weather.startWeekday]}
             {weather.pressurePa ? `, mean pressure ${fmt.pressure(weather.pressurePa, s)}` : ""}.
           </p>
