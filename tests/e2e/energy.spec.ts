@@ -2,7 +2,14 @@ import { execFileSync } from "node:child_process";
 import { mkdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { test, expect, request as pwRequest, type Page } from "@playwright/test";
+import AxeBuilder from "@axe-core/playwright";
 import { stateOf, WS } from "./roles";
+
+/** Serious and critical WCAG 2 A/AA findings inside the page's own content. */
+async function axe(page: Page) {
+  const r = await new AxeBuilder({ page }).include("main").withTags(["wcag2a", "wcag2aa"]).analyze();
+  return r.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(" ")).slice(0, 3).join("; ")})`);
+}
 
 const shot = (page: Page, name: string) => page.screenshot({ path: `.run/test/screenshots/${name}.png`, fullPage: true });
 const SITE = { designDryBulbC: 32, coincidentWetBulbC: 23, groundTempC: 12, elevationM: 150 };
@@ -58,6 +65,7 @@ test.describe("designer", () => {
     await page.getByRole("group", { name: "Monthly energy: chart or table" }).getByRole("button", { name: "Table" }).click();
     await expect(page.getByTestId("monthly-table")).toContainText("Dec");
     await shot(page, "energy-designer");
+    expect(await axe(page)).toEqual([]);
 
     // a tariff out of range is named and nothing saved; a valid one prices the year
     await page.getByLabel("Price", { exact: true }).fill("250");
@@ -127,6 +135,7 @@ test.describe("viewer", () => {
     const r = await page.request.post(`/api/v1/workspaces/${WS}/facilities/${facilityId}/energy`);
     expect(r.status()).toBe(403);
     await shot(page, "energy-viewer");
+    expect(await axe(page)).toEqual([]);
     await page.goto(`/w/${WS}/settings`);
     await expect(page.getByLabel("Currency of running costs (ISO 4217)")).toBeDisabled();
     await expect(page.getByText("Only an owner changes the workspace's settings.")).toBeVisible();

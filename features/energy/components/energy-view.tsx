@@ -33,14 +33,16 @@ function Figure({ label, value, sub, how, testId }: { label: string; value: stri
       </dd>
       {sub ? <dd className="text-xs text-muted">{sub}</dd> : null}
       {how?.length ? (
-        <details className="text-xs text-muted">
-          <summary className="cursor-pointer">How</summary>
-          <ul className="mt-1 list-disc pl-4">
-            {how.map((h) => (
-              <li key={h}>{h}</li>
-            ))}
-          </ul>
-        </details>
+        <dd>
+          <details className="text-xs text-muted">
+            <summary className="cursor-pointer">How</summary>
+            <ul className="mt-1 list-disc pl-4">
+              {how.map((h) => (
+                <li key={h}>{h}</li>
+              ))}
+            </ul>
+          </details>
+        </dd>
       ) : null}
     </div>
   );

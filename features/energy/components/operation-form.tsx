@@ -234,7 +234,8 @@ export function OperationForm({
         <label className="flex items-center gap-2 text-xs">
           <input type="checkbox" checked={p.on} onChange={(e) => setP(k, "on", e.target.checked)} /> Follow a weekly pattern (otherwise every hour as on the design day)
         </label>
-        {initialPatterns[k].custom ? <p className="text-xs text-warn">⚠ The model holds a custom week this form cannot show; saving here replaces it with the pattern below.</p> : null}
+        {initialPatterns[k].custom ? <p className="border-l-2 border-warn pl-2 text-xs">
+            ⚠ The model holds a custom week this form cannot show; saving here replaces it with the pattern below.</p> : null}
         {p.on ? (
           <div className="flex flex-wrap gap-2">
             <NumberInput id={`${k}-from`} label="Open from hour" value={p.from} onChange={(v) => setP(k, "from", v)} error={errors[`${k}.from`]} width="w-16" />

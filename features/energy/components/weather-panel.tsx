@@ -97,7 +97,8 @@ export function WeatherPanel({ ws, facilityId, weather, canEdit, s }: { ws: stri
             {["Monday", "Tuesday", "Wednesday", "Thursday", "Friday", "Saturday", "Sunday"][weather.startWeekday]}
             {weather.pressurePa ? `, mean pressure ${fmt.pressure(weather.pressurePa, s)}` : ""}.
           </p>
-          {weather.kind === "monthly" ? <p className="text-xs text-warn">⚠ An approximation: each month repeats its mean day, so the year&apos;s peaks are milder than a real year&apos;s.</p> : null}
+          {weather.kind === "monthly" ? <p className="border-l-2 border-warn pl-2 text-xs">
+              ⚠ An approximation: each month repeats its mean day, so the year&apos;s peaks are milder than a real year&apos;s.</p> : null}
           {weather.kind === "demo" ? <p className="text-xs text-muted">Invented for the demo: not measured weather of any place.</p> : null}
           {weather.notes.length ? (
             <ul className="list-disc pl-5 text-xs text-muted">
