@@ -11,6 +11,8 @@ import { createFacilitySchema, updateFacilitySchema, archiveFacilitySchema, dupl
 import { saveModelSchema, issueSchema } from "@/features/facilities/model-schema";
 import { inviteSchema, changeRoleSchema, acceptInviteSchema } from "@/features/team/schema";
 import { emailOnlySchema, resetSchema } from "@/features/auth/schema";
+import { workspaceSettingsSchema } from "@/features/energy/schema";
+import { monthlyWeatherSchema } from "@/features/energy/monthly";
 
 const js = (s: z.ZodType) => z.toJSONSchema(s, { io: "input", unrepresentable: "any", target: "draft-2020-12" });
 
@@ -76,6 +78,8 @@ export function openApiDocument(serverUrl: string) {
         EmailOnly: js(emailOnlySchema),
         ResetPassword: js(resetSchema),
         StateQuery: js(stateQuerySchema),
+        WorkspaceSettings: js(workspaceSettingsSchema),
+        MonthlyWeather: js(monthlyWeatherSchema),
       },
     },
     security: [{ session: [] }],
@@ -113,6 +117,23 @@ export function openApiDocument(serverUrl: string) {
       "/api/v1/workspaces/{ws}/facilities/{id}/model": {
         get: { summary: "The model document and its version", parameters: [ws, id], responses: { "200": ok("Model"), ...errors } },
         put: { summary: "Save the model (owner, designer); non-overlapping concurrent edits are merged", parameters: [ws, id], requestBody: body("SaveModel"), responses: { "200": ok("Saved"), "409": ok("Overlapping concurrent edit: current document included"), ...errors } },
+      },
+      "/api/v1/workspaces/{ws}/settings": {
+        get: { summary: "The workspace's settings (currency of running costs)", parameters: [ws], responses: { "200": ok("Settings"), ...errors } },
+        patch: { summary: "Change the currency, an ISO 4217 code (owner)", parameters: [ws], requestBody: body("WorkspaceSettings"), responses: { "200": ok("Settings"), ...errors } },
+      },
+      "/api/v1/workspaces/{ws}/facilities/{id}/weather": {
+        get: { summary: "The facility's weather year: source, year, monthly means, how it was read", parameters: [ws, id], responses: { "200": ok("Weather"), ...errors } },
+        post: {
+          summary: "Upload an hourly weather year (multipart field file: .csv or .epw, at most 4 MB, 8760 or 8784 hours; optional year). Any problem is refused naming its row and column; nothing is stored (owner, designer)",
+          parameters: [ws, id],
+          responses: { "201": ok("Stored, and the year queued"), ...errors },
+        },
+        put: { summary: "Build the weather from monthly means by the sine-day method, an approximation (owner, designer)", parameters: [ws, id], requestBody: body("MonthlyWeather"), responses: { "200": ok("Stored, and the year queued"), ...errors } },
+      },
+      "/api/v1/workspaces/{ws}/facilities/{id}/energy": {
+        get: { summary: "The facility's year: the newest stored annual result with its stamps, why it is stale, a run in progress", parameters: [ws, id], responses: { "200": ok("Energy"), ...errors } },
+        post: { summary: "Run the year on the worker (owner, designer); 202 with the job", parameters: [ws, id], responses: { "202": ok("Job"), ...errors } },
       },
       "/api/v1/workspaces/{ws}/facilities/{id}/results": { get: { summary: "Server results for the current version (engine version, input hash)", parameters: [ws, id], responses: { "200": ok("Results"), "422": ok("Calculation error"), ...errors } } },
       "/api/v1/workspaces/{ws}/facilities/{id}/revisions": { get: { summary: "Revision history", parameters: [ws, id], responses: { "200": ok("Revisions"), ...errors } } },

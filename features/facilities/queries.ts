@@ -1,7 +1,7 @@
 import "server-only";
 import { and, desc, eq, isNotNull, isNull, sql } from "drizzle-orm";
 import { db } from "@/db/client";
-import { facilities, facilityRevisions } from "@/db/schema";
+import { facilities, facilityRevisions, weatherYears } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import type { FacilityDto, SiteConditions } from "./schema";
 import { EMPTY_MODEL_DOC } from "./engine-model";
@@ -137,6 +137,14 @@ export async function duplicateFacility(workspaceId: string, userId: string, id:
     })
     .returning();
   await snapshot(tx, row, userId, `Duplicated from ${src.name}`);
+  // The copy stands on the same site: it keeps the facility's weather year (the newest).
+  const [w] = await tx.select().from(weatherYears).where(and(eq(weatherYears.workspaceId, workspaceId), eq(weatherYears.facilityId, src.id))).orderBy(desc(weatherYears.createdAt)).limit(1);
+  if (w) {
+    const { id: _id, createdAt: _at, ...rest } = w;
+    void _id;
+    void _at;
+    await tx.insert(weatherYears).values({ ...rest, facilityId: row.id, createdBy: userId });
+  }
   return toDto(row);
   });
 }

@@ -49,6 +49,8 @@ import * as acceptRoute from "@/app/api/v1/invites/accept/route";
 import * as resetRoute from "@/app/api/v1/auth/reset/route";
 import * as linkRoute from "@/app/api/v1/auth/link/route";
 import * as resetRequestRoute from "@/app/api/v1/auth/reset-request/route";
+import * as weatherRoute from "@/app/api/v1/workspaces/[ws]/facilities/[id]/weather/route";
+import * as settingsRoute from "@/app/api/v1/workspaces/[ws]/settings/route";
 
 const read = (p: string) => JSON.parse(readFileSync(path.resolve(import.meta.dirname, "../..", p), "utf8"));
 const demo = read("seeds/data/harrowfield-model.json") as ModelDoc;
@@ -219,6 +221,8 @@ const targets: Target[] = [
   { name: "invite.accept", handler: acceptRoute.POST, method: "POST", params: () => ({}), base: () => ({ token: "t".repeat(43), name: "Someone", password: "a-long-password" }), runs: 500 },
   { name: "auth.reset", handler: resetRoute.POST, method: "POST", params: () => ({}), base: () => ({ token: "t".repeat(43), password: "a-long-password" }), runs: 400 },
   { name: "auth.link", handler: linkRoute.POST, method: "POST", params: () => ({}), base: () => ({ email: "nobody@example.test" }), runs: 300 },
+  { name: "weather.monthly", handler: weatherRoute.PUT, method: "PUT", params: PB, base: () => ({ year: 2025, climate: { label: "Fuzz climate", meanDryBulbC: Array(12).fill(10), dailyRangeK: Array(12).fill(8), meanRhPct: Array(12).fill(75) } }), runs: 200 },
+  { name: "workspace.settings", handler: settingsRoute.PATCH, method: "PATCH", params: P, base: () => ({ currency: "EUR" }), runs: 300 },
   { name: "auth.reset-request", handler: resetRequestRoute.POST, method: "POST", params: () => ({}), base: () => ({ email: "nobody@example.test" }), runs: 300 },
 ];
 
