@@ -125,7 +125,7 @@ function findOption(doc: Doc, id: string): number {
 }
 
 /** A new option copying the design plant (or another option's plant and assessment). */
-export function addOption(doc: Doc, args: { id: string; name: string; from?: string }): Doc {
+export function addOption<D extends Doc>(doc: D, args: { id: string; name: string; from?: string }): D {
   const opts = optionsOf(doc);
   if (opts.length >= MAX_PLANT_OPTIONS) throw new OptionEditError(`A facility has at most ${MAX_PLANT_OPTIONS} options besides the design.`, "name");
   if (opts.some((o) => o.id === args.id) || args.id === DESIGN_ID) throw new OptionEditError(`id "${args.id}" is taken`, "id");
@@ -146,7 +146,7 @@ export function addOption(doc: Doc, args: { id: string; name: string; from?: str
 }
 
 /** Renames the design or an option (names are unique, case-insensitively). */
-export function renameOption(doc: Doc, id: string, newName: string): Doc {
+export function renameOption<D extends Doc>(doc: D, id: string, newName: string): D {
   if (id === DESIGN_ID) return { ...doc, plantStudy: { ...studyOf(doc), designName: checkName(doc, newName, DESIGN_ID) } };
   const i = findOption(doc, id);
   const name = checkName(doc, newName, id);
@@ -155,7 +155,7 @@ export function renameOption(doc: Doc, id: string, newName: string): Doc {
   return { ...doc, plantOptions: opts };
 }
 
-export function deleteOption(doc: Doc, id: string): Doc {
+export function deleteOption<D extends Doc>(doc: D, id: string): D {
   if (id === DESIGN_ID) throw new OptionEditError("The design plant cannot be deleted; make another option the design first.", "optionId");
   const i = findOption(doc, id);
   return { ...doc, plantOptions: optionsOf(doc).filter((_, j) => j !== i) };
@@ -166,7 +166,7 @@ export function deleteOption(doc: Doc, id: string): Doc {
  * `plantStudy`, and the former design takes the option's place (same id, same position), so
  * nothing is lost and the swap can be undone by swapping back.
  */
-export function makeDesign(doc: Doc, id: string): Doc {
+export function makeDesign<D extends Doc>(doc: D, id: string): D {
   const i = findOption(doc, id);
   const opts = optionsOf(doc).slice();
   const opt = opts[i];
@@ -181,7 +181,7 @@ export function makeDesign(doc: Doc, id: string): Doc {
 }
 
 /** Sets the study's shared inputs or one plant's assessment inputs (merged over what is stored). */
-export function setAssessment(doc: Doc, id: string, patch: Record<string, unknown>): Doc {
+export function setAssessment<D extends Doc>(doc: D, id: string, patch: Record<string, unknown>): D {
   if (id === DESIGN_ID) {
     const s = studyOf(doc);
     return { ...doc, plantStudy: { ...s, designAssessment: { ...((s.designAssessment as object) ?? {}), ...patch } } };
@@ -192,6 +192,6 @@ export function setAssessment(doc: Doc, id: string, patch: Record<string, unknow
   return { ...doc, plantOptions: opts };
 }
 
-export function setStudy(doc: Doc, patch: { years?: number; gridKgCo2PerKWh?: number }): Doc {
+export function setStudy<D extends Doc>(doc: D, patch: { years?: number; gridKgCo2PerKWh?: number }): D {
   return { ...doc, plantStudy: { ...studyOf(doc), ...patch } };
 }
