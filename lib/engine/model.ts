@@ -42,6 +42,7 @@ import { assemblePlant, computePlant, fluidsNeeded, type PlantResult } from "./p
 import { designCapacityWithFeedback, NO_FEEDBACK, withFeedback } from "./plant/ledger-feedback";
 import { plantInputSchema, type EvaporatorInput, type PlantInput } from "./plant/schema";
 import { MAX_PLANT_OPTIONS, plantOptionSchema, plantStudySchema, DESIGN_ID } from "./options";
+import { operationSchema } from "./annual/schema";
 
 export { buildSchedule } from "./plant/schedule";
 export { rerateInstalled } from "./plant/rerate";
@@ -58,6 +59,11 @@ const plantPart = z.object({
   plantOptions: z.array(plantOptionSchema).max(MAX_PLANT_OPTIONS, `at most ${MAX_PLANT_OPTIONS} options`).default([]),
   /** What the options share (years, grid factor) and the design's own name and assessment. */
   plantStudy: plantStudySchema.prefault({}),
+  /**
+   * How the facility runs through the year (schedules, part load, tariff) for the annual
+   * engine (`lib/engine/annual`); optional, and every default is the design day.
+   */
+  operation: operationSchema.optional(),
 });
 
 function checkRoomRefs(plant: PlantInput | undefined, rooms: Set<string>, at: (string | number)[], ctx: z.RefinementCtx): void {
@@ -130,11 +136,12 @@ export function facilityFluidsNeeded(model: Pick<FacilityModel, "plant">): Fluid
 
 /** The ledger's own part of the document: everything but the version and the plant. */
 function ledgerPart(m: FacilityModel): LedgerInput {
-  const { schemaVersion, plant, plantOptions, plantStudy, ...ledger } = m;
+  const { schemaVersion, plant, plantOptions, plantStudy, operation, ...ledger } = m;
   void schemaVersion;
   void plant;
   void plantOptions;
   void plantStudy;
+  void operation;
   return ledger;
 }
 

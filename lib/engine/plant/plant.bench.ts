@@ -10,7 +10,7 @@ import type { PlantInputRaw } from "./schema";
  * low stages, the rest on single-stage ammonia (DX) and R449A — two evaporative condensers.
  * Invented for benchmarks, not a real site.
  */
-function generatePlant(rooms: { id: string; setPointC: number }[]): PlantInputRaw {
+export function generatePlant(rooms: { id: string; setPointC: number }[]): PlantInputRaw {
   const lt = rooms.filter((r) => r.setPointC < -5);
   const mt = rooms.filter((r) => r.setPointC >= -5);
   const nLt = Math.round((20 * lt.length) / rooms.length);
