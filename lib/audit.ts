@@ -21,7 +21,9 @@ export type AuditAction =
   | "revision.issued"
   | "scenario.applied"
   | "export.created"
-  | "import.committed";
+  | "import.committed"
+  | "workspace.updated"
+  | "weather.stored";
 
 /** Appends one audit record (the table refuses updates and deletes); inside `exec` when it is a transaction. */
 export async function audit(entry: {

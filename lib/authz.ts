@@ -14,6 +14,7 @@ export type Role = (typeof ROLES)[number];
 
 export const ACTIONS = [
   "workspace.read",
+  "workspace.settings", // currency
   "facility.read",
   "facility.create",
   "facility.update", // rename, site conditions
@@ -37,6 +38,7 @@ const DESIGN: readonly Role[] = ["owner", "designer"];
 
 const POLICY: Record<Action, readonly Role[]> = {
   "workspace.read": ALL,
+  "workspace.settings": ["owner"],
   "facility.read": ALL,
   "facility.create": DESIGN,
   "facility.update": DESIGN,
@@ -61,6 +63,7 @@ export function can(role: Role, action: Action): boolean {
 
 const ACTION_WORDS: Record<Action, string> = {
   "workspace.read": "open this workspace",
+  "workspace.settings": "change the workspace's settings",
   "facility.read": "read facilities",
   "facility.create": "create facilities",
   "facility.update": "change a facility",

@@ -8,7 +8,8 @@ import bcrypt from "bcryptjs";
 import { readFileSync, existsSync } from "node:fs";
 import path from "node:path";
 import { openDb } from "./db";
-import { facilities, facilityRevisions, memberships, users, workspaces } from "../db/schema";
+import { facilities, facilityRevisions, memberships, users, weatherYears, workspaces } from "../db/schema";
+import { HARROWFIELD_CLIMATE, inventYear } from "./invented-weather";
 
 export const DEMO_PASSWORD = "harrowfield-demo";
 export const DEMO_WORKSPACE = { slug: "harrowfield", name: "Harrowfield Cold Store (demo)" };
@@ -20,6 +21,8 @@ export const DEMO_USERS = [
   { email: "viewer@harrowfield.example", name: "Vic Viewer", role: "viewer" },
 ] as const;
 export const DEMO_FACILITY_NAME = "Harrowfield Cold Store — main building (invented)";
+/** The demo site's weather year: invented (see seeds/invented-weather.ts), shipped with the demo only. */
+export const DEMO_WEATHER_LABEL = "Harrowfield invented year 2025 — fictional, generated from an invented monthly climate; not measured anywhere";
 
 function demoModel(): Record<string, unknown> | null {
   const file = path.resolve(import.meta.dirname, "data/harrowfield-model.json");
@@ -61,6 +64,27 @@ export async function seedDemo(url?: string) {
         model: model ?? { schemaVersion: 1, rooms: [], doors: [], plant: {} },
         site: { designDryBulbC: 32, coincidentWetBulbC: 23, designRhPct: null, groundTempC: 12, elevationM: 150 },
         summary: "Demo model (invented)",
+        createdBy: owner.id,
+      });
+    }
+    const [fac] = await db
+      .select({ id: facilities.id })
+      .from(facilities)
+      .where(and(eq(facilities.workspaceId, ws.id), eq(facilities.name, DEMO_FACILITY_NAME)));
+    const [hasWeather] = await db.select({ id: weatherYears.id }).from(weatherYears).where(eq(weatherYears.facilityId, fac.id)).limit(1);
+    if (!hasWeather) {
+      const y = inventYear(HARROWFIELD_CLIMATE, { year: 2025, seed: 1 });
+      await db.insert(weatherYears).values({
+        workspaceId: ws.id,
+        facilityId: fac.id,
+        kind: "demo",
+        label: DEMO_WEATHER_LABEL,
+        year: y.year,
+        startWeekday: 2, // 1 January 2025 is a Wednesday
+        hours: y.dryBulbC.length,
+        dryBulbC: y.dryBulbC,
+        rhPct: y.rhPct,
+        notes: ["Invented for the demo: daily means follow an invented monthly climate with seeded day-to-day swings and a cosine through each day."],
         createdBy: owner.id,
       });
     }

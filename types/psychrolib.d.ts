@@ -11,6 +11,7 @@ declare module "psychrolib" {
     GetRelHumFromHumRatio(tDryBulb: number, humRatio: number, pressure: number): number;
     GetTWetBulbFromRelHum(tDryBulb: number, relHum: number, pressure: number): number;
     GetRelHumFromTWetBulb(tDryBulb: number, tWetBulb: number, pressure: number): number;
+    GetRelHumFromTDewPoint(tDryBulb: number, tDewPoint: number): number;
     GetMoistAirEnthalpy(tDryBulb: number, humRatio: number): number;
     GetMoistAirDensity(tDryBulb: number, humRatio: number, pressure: number): number;
     GetMoistAirVolume(tDryBulb: number, humRatio: number, pressure: number): number;

@@ -3,3 +3,4 @@ export * from "./workspaces";
 export * from "./facilities";
 export * from "./revisions";
 export * from "./ops";
+export * from "./energy";

@@ -7,6 +7,8 @@ export const workspaces = pgTable("workspaces", {
   id: uuid("id").primaryKey().defaultRandom(),
   slug: text("slug").notNull().unique(),
   name: text("name").notNull(),
+  /** ISO 4217 code in which running costs are shown (the facility tariffs are in it). */
+  currency: text("currency").notNull().default("EUR"),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
 

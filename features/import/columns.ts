@@ -6,7 +6,7 @@
 import { convert } from "@/lib/units";
 import type { CellValue } from "./read-table";
 
-export type Quantity = "length" | "temp" | "mass" | "massRate" | "hours" | "percent" | "text";
+export type Quantity = "length" | "temp" | "mass" | "massRate" | "hours" | "percent" | "pressure" | "text";
 
 interface UnitDef {
   label: string;
@@ -34,9 +34,18 @@ const UNITS: Record<Exclude<Quantity, "text">, Record<string, UnitDef>> = {
   },
   hours: { h: { label: "h", toSI: (v) => v }, hours: { label: "h", toSI: (v) => v }, min: { label: "min", toSI: (v) => v / 60 } },
   percent: { "%": { label: "%", toSI: (v) => v } },
+  // Absolute pressures (a weather file's station pressure), read to Pa.
+  pressure: {
+    pa: { label: "Pa", toSI: (v) => v },
+    hpa: { label: "hPa", toSI: (v) => v * 100 },
+    mbar: { label: "mbar", toSI: (v) => v * 100 },
+    kpa: { label: "kPa", toSI: (v) => v * 1000 },
+    bar: { label: "bar", toSI: (v) => v * 1e5 },
+    psi: { label: "psi", toSI: (v) => convert.pressureFromDisplay(v, "IP", "abs") },
+  },
 };
 
-const DEFAULT_UNIT: Record<Exclude<Quantity, "text">, string> = { length: "m", temp: "°c", mass: "kg", massRate: "t/day", hours: "h", percent: "%" };
+const DEFAULT_UNIT: Record<Exclude<Quantity, "text">, string> = { length: "m", temp: "°c", mass: "kg", massRate: "t/day", hours: "h", percent: "%", pressure: "pa" };
 
 export interface FieldSpec {
   key: string;
@@ -65,7 +74,7 @@ export function splitHeader(h: string): { name: string; unit: string | null } {
   const t = h.trim();
   const bracket = /^(.*?)\s*[[(]\s*([^\])]+?)\s*[\])]\s*$/.exec(t);
   if (bracket) return { name: bracket[1].trim().toLowerCase(), unit: bracket[2].trim().toLowerCase() };
-  const trailing = /^(.*?)\s+(°[cf]|t\/day|t\/d|kg\/day|kg\/d|lb\/day|kg|lb|ft|m|h|%)$/i.exec(t);
+  const trailing = /^(.*?)\s+(°[cf]|t\/day|t\/d|kg\/day|kg\/d|lb\/day|kg|lb|ft|m|h|%|hpa|kpa|pa|mbar)$/i.exec(t);
   if (trailing) return { name: trailing[1].trim().toLowerCase(), unit: trailing[2].toLowerCase() };
   return { name: t.toLowerCase(), unit: null };
 }

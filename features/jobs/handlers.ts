@@ -4,6 +4,7 @@ import type { JobHandler } from "@/lib/jobs/worker";
 import type { JobKind } from "@/lib/jobs/queue";
 import { runScheduleExport } from "@/features/schedule/export-job";
 import { importJob } from "@/features/import/job";
+import { runAnnualJob } from "@/features/energy/job";
 
 /**
  * What the worker (scripts/worker.ts) runs for each kind of job. A new kind (the annual energy
@@ -17,4 +18,5 @@ export const JOB_HANDLERS: Record<JobKind, JobHandler> = {
   "schedule.export": runScheduleExport,
   "import.rooms": importJob("rooms"),
   "import.stocking": importJob("stocking"),
+  "energy.annual": runAnnualJob,
 };

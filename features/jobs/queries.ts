@@ -15,6 +15,8 @@ export const JOB_ACTION: Record<string, Action> = {
   "schedule.export": "schedule.export",
   "import.rooms": "model.edit",
   "import.stocking": "scenario.create",
+  // The year's run is seen by everyone who reads the facility (its figures are on the Energy page).
+  "energy.annual": "facility.read",
 };
 
 const base = (ws: string, id: string) => `/api/v1/workspaces/${encodeURIComponent(ws)}/jobs/${id}`;

@@ -45,6 +45,8 @@ export const JOB_KINDS = {
   "schedule.export": { retryLimit: 2, retryDelay: 5, retryBackoff: true, expireInSeconds: 900 },
   "import.rooms": { retryLimit: 2, retryDelay: 5, retryBackoff: true, expireInSeconds: 600 },
   "import.stocking": { retryLimit: 2, retryDelay: 5, retryBackoff: true, expireInSeconds: 600 },
+  // A year of hours: one retry (a bad model fails at once with an AppError), ten minutes at most.
+  "energy.annual": { retryLimit: 1, retryDelay: 5, retryBackoff: true, expireInSeconds: 600 },
 } satisfies Record<string, KindOptions>;
 
 const DEFAULT_KIND: KindOptions = { retryLimit: 2, retryDelay: 5, retryBackoff: true, expireInSeconds: 600 };

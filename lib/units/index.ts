@@ -46,6 +46,12 @@ export const convert = {
   massToDisplay: (kg: number, s: UnitSystem) => (s === "SI" ? kg : conv(kg, "kg", "lb")),
   massFromDisplay: (v: number, s: UnitSystem) => (s === "SI" ? v : conv(v, "lb", "kg")),
   energyToDisplay: (kwh: number, s: UnitSystem) => (s === "SI" ? kwh : conv(kwh, "kWh", "BTU")),
+  /** Refrigeration delivered: kWh(r), or ton-hours (12 000 Btu each) in IP. */
+  coolingEnergyToDisplay: (kwh: number, s: UnitSystem) => (s === "SI" ? kwh : conv(kwh, "kWh", "BTU") / 12_000),
+  /** Annual energy per volume: kWh/m³ (SI) or kWh/ft³ (IP). */
+  perVolumeToDisplay: (kwhPerM3: number, s: UnitSystem) => (s === "SI" ? kwhPerM3 : kwhPerM3 / conv(1, "m^3", "ft^3")),
+  /** Energy per mass handled: kWh/t (SI) or kWh per short ton of 2000 lb (IP). */
+  perMassToDisplay: (kwhPerT: number, s: UnitSystem) => (s === "SI" ? kwhPerT : kwhPerT * conv(2000, "lb", "kg") / 1000),
 };
 
 export const UNIT_LABELS: Record<UnitSystem, Record<string, string>> = {
@@ -111,6 +117,26 @@ export const fmt = {
   area: (m2: number, s: UnitSystem) => `${num(convert.areaToDisplay(m2, s), 1)} ${UNIT_LABELS[s].area}`,
   mass: (kg: number, s: UnitSystem) => `${num(convert.massToDisplay(kg, s), 0)} ${UNIT_LABELS[s].mass}`,
   cop: (v: number) => num(v, 2),
+  /** Electrical energy: kWh(e) in both systems (tariffs are per kWh); MWh(e) from 10 000 kWh. */
+  energyElectrical: (kwh: number) => (Math.abs(kwh) >= 10_000 ? `${num(kwh / 1000, 1)} MWh(e)` : `${num(kwh, 0)} kWh(e)`),
+  /** Refrigeration energy: kWh(r) (MWh(r) from 10 000) in SI, ton·h in IP. */
+  energyCooling: (kwh: number, s: UnitSystem) =>
+    s === "IP" ? `${num(convert.coolingEnergyToDisplay(kwh, s), 0)} ton·h` : Math.abs(kwh) >= 10_000 ? `${num(kwh / 1000, 1)} MWh(r)` : `${num(kwh, 0)} kWh(r)`,
+  /** kWh(e) per m³ (or ft³) of refrigerated volume per year. */
+  energyPerVolume: (kwhPerM3: number, s: UnitSystem) => `${num(convert.perVolumeToDisplay(kwhPerM3, s), s === "SI" ? 1 : 2)} kWh(e)/${s === "SI" ? "m³" : "ft³"}·yr`,
+  /** kWh(e) per tonne (or short ton) of product handled. */
+  energyPerMass: (kwhPerT: number, s: UnitSystem) => `${num(convert.perMassToDisplay(kwhPerT, s), 1)} kWh(e)/${s === "SI" ? "t" : "ton"}`,
+  /** An amount of money in the workspace's currency (ISO 4217 code), whole units from 1000. */
+  money: (v: number, currency: string) => {
+    if (!Number.isFinite(v)) return "—";
+    const digits = Math.abs(v) >= 1000 ? 0 : 2;
+    try {
+      return new Intl.NumberFormat("en-GB", { style: "currency", currency, minimumFractionDigits: digits, maximumFractionDigits: digits }).format(v).replace(/^-/, MINUS);
+    } catch {
+      return `${num(v, digits)} ${currency}`;
+    }
+  },
+  hours: (h: number) => `${num(h, 0)} h`,
   percent: (fraction: number) => `${num(fraction * 100, 1)} %`,
   number: num,
 };

@@ -46,4 +46,19 @@ describe("units", () => {
       { seed: 42, numRuns: 300 },
     );
   });
+
+  it("formats the year's energy, its intensities and money", () => {
+    // 1 ton·h = 12 000 Btu_IT = 3.516853 kWh; 1 m³ = 35.31467 ft³; 1 short ton = 907.18474 kg (NIST SP 811)
+    expect(convert.coolingEnergyToDisplay(3.516853, "IP")).toBeCloseTo(1, 5);
+    expect(convert.perVolumeToDisplay(35.31467, "IP")).toBeCloseTo(1, 5);
+    expect(convert.perMassToDisplay(100, "IP")).toBeCloseTo(90.718474, 5);
+    expect(fmt.energyElectrical(9_999)).toBe("9,999 kWh(e)");
+    expect(fmt.energyElectrical(1_234_567)).toBe("1,234.6 MWh(e)");
+    expect(fmt.energyCooling(3516.853, "IP")).toBe("1,000 ton·h");
+    expect(fmt.energyPerVolume(12.345, "SI")).toBe("12.3 kWh(e)/m³·yr");
+    expect(fmt.energyPerMass(100, "IP")).toBe("90.7 kWh(e)/ton");
+    expect(fmt.money(12_345.678, "EUR")).toBe("€12,346");
+    expect(fmt.money(-12.5, "USD")).toBe("\u2212US$12.50");
+    expect(fmt.money(5, "GBP")).toBe("£5.00");
+  });
 });

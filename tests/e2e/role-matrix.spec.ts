@@ -63,6 +63,8 @@ const COVERED: Record<string, Row> = {
   [`DELETE ${W}/members/[userId]`]: roles("ADDDD"),
   [`POST ${W}/invites`]: roles("ADDDD"),
   [`DELETE ${W}/invites/[inviteId]`]: roles("ADDDD"),
+  [`GET ${W}/settings`]: roles("AAAAA"),
+  [`PATCH ${W}/settings`]: roles("ADDDD"),
   [`GET ${W}/jobs/[id]`]: roles("AADAD"),
   [`GET ${W}/jobs/[id]/result`]: roles("AADAD"),
   [`GET ${W}/facilities`]: roles("AAAAA"),
@@ -100,6 +102,11 @@ const COVERED: Record<string, Row> = {
   [`PATCH ${F}/options/[oid]`]: roles("AADDD"),
   [`DELETE ${F}/options/[oid]`]: roles("AADDD"),
   [`POST ${F}/options/[oid]/design`]: roles("AADDD"),
+  [`GET ${F}/weather`]: roles("AAAAA"),
+  [`POST ${F}/weather`]: roles("AADDD"),
+  [`PUT ${F}/weather`]: roles("AADDD"),
+  [`GET ${F}/energy`]: roles("AAAAA"),
+  [`POST ${F}/energy`]: roles("AADDD"),
 };
 
 /** Every exported HTTP method of every route.ts under app/, as "METHOD /path" (route groups dropped). */
@@ -145,6 +152,9 @@ const PNG = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0
 const ROOMS_CSV = "Name,Length [m],Width [m],Height [m],Set point [°C],Construction\nMatrix chiller,20,10,8,4,PIR 120\n";
 const STOCKING_CSV = "Room;Intake [t/day];Entering [°C]\napples;5;18\n";
 const BAD_TOKEN = "not-a-real-token-".repeat(3);
+/** A valid hourly year (hours without dates) and a valid monthly climate, both invented. */
+const WEATHER_CSV = ["Hour,Dry bulb [°C],Relative humidity [%]", ...Array.from({ length: 8760 }, (_, i) => `${i + 1},${(10 + 8 * Math.sin((i / 24) * 2 * Math.PI)).toFixed(1)},70`)].join("\n");
+const MONTHLY = { year: 2025, climate: { label: "Matrix climate (invented)", meanDryBulbC: Array(12).fill(10), dailyRangeK: Array(12).fill(8), meanRhPct: Array(12).fill(75) } };
 let ctx: Record<Role, APIRequestContext>;
 let anon: APIRequestContext;
 /** The demo facility (read only here) and a facility of this spec's own that the changes go to. */
@@ -258,6 +268,8 @@ const SEND: Record<keyof typeof COVERED, Send> = {
     const made = await (await ctx.owner.post(`${base}/invites`, { data: { email: `revoke-${who}-${Date.now()}@example.test`, role: "viewer" } })).json();
     return st(await c.delete(`${base}/invites/${made.invite.id}`));
   },
+  [`GET ${W}/settings`]: async (c) => st(await c.get(`${base}/settings`)),
+  [`PATCH ${W}/settings`]: async (c) => st(await c.patch(`${base}/settings`, { data: { currency: "EUR" } })),
   [`GET ${W}/jobs/[id]`]: async (c) => st(await c.get(`${base}/jobs/${(await ownerExport()).id}`)),
   [`GET ${W}/jobs/[id]/result`]: async (c) => st(await c.get(`${base}/jobs/${(await ownerExport()).id}/result`)),
   [`GET ${W}/facilities`]: async (c) => st(await c.get(`${base}/facilities`)),
@@ -322,6 +334,15 @@ const SEND: Record<keyof typeof COVERED, Send> = {
   [`PATCH ${F}/options/[oid]`]: async (c, who) => st(await c.patch(`${s()}/options/${await ownerOption(who)}`, { data: { name: `Renamed ${who} ${Date.now()}`, leakPctPerYear: 4 } })),
   [`DELETE ${F}/options/[oid]`]: async (c, who) => st(await c.delete(`${s()}/options/${await ownerOption(who)}`)),
   [`POST ${F}/options/[oid]/design`]: async (c, who) => st(await c.post(`${s()}/options/${await ownerOption(who)}/design`)),
+  [`GET ${F}/weather`]: async (c) => st(await c.get(`${f()}/weather`)),
+  [`POST ${F}/weather`]: async (c) => st(await c.post(`${s()}/weather`, { multipart: { file: { name: "year.csv", mimeType: "text/csv", buffer: Buffer.from(WEATHER_CSV) } } })),
+  [`PUT ${F}/weather`]: async (c) => st(await c.put(`${s()}/weather`, { data: MONTHLY })),
+  [`GET ${F}/energy`]: async (c) => st(await c.get(`${f()}/energy`)),
+  [`POST ${F}/energy`]: async (c) => {
+    // the scratch facility needs a weather year to run
+    expect((await ctx.owner.put(`${s()}/weather`, { data: MONTHLY })).status()).toBe(200);
+    return st(await c.post(`${s()}/energy`));
+  },
 };
 
 for (const [key, row] of Object.entries(COVERED)) {

@@ -12,7 +12,8 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { eq, getTableName, sql, type Table } from "drizzle-orm";
 import { db } from "@/db/client";
-import { auditLog, exportsLog, facilities, facilityLayouts, facilityRevisions, invites, jobs, memberships, scenarios } from "@/db/schema";
+import { annualResults, auditLog, exportsLog, facilities, facilityLayouts, facilityRevisions, invites, jobs, memberships, scenarios, weatherYears, workspaces } from "@/db/schema";
+import { storeWeather } from "@/features/energy/weather";
 import { env } from "@/lib/env";
 import type { CurrentUser } from "@/lib/session";
 import { enqueue, stopSender } from "@/lib/jobs/queue";
@@ -59,6 +60,9 @@ import * as auditRoute from "@/app/api/v1/workspaces/[ws]/audit/route";
 import * as optionsRoute from "@/app/api/v1/workspaces/[ws]/facilities/[id]/options/route";
 import * as optionRoute from "@/app/api/v1/workspaces/[ws]/facilities/[id]/options/[oid]/route";
 import * as optionDesignRoute from "@/app/api/v1/workspaces/[ws]/facilities/[id]/options/[oid]/design/route";
+import * as settingsRoute from "@/app/api/v1/workspaces/[ws]/settings/route";
+import * as weatherRoute from "@/app/api/v1/workspaces/[ws]/facilities/[id]/weather/route";
+import * as energyRoute from "@/app/api/v1/workspaces/[ws]/facilities/[id]/energy/route";
 
 const read = (p: string) => JSON.parse(readFileSync(path.resolve(import.meta.dirname, "../..", p), "utf8"));
 const demo = read("seeds/data/harrowfield-model.json") as ModelDoc;
@@ -112,6 +116,7 @@ async function makeSide(tag: string): Promise<Side> {
   const { job } = await enqueue({ kind: "schedule.export", workspaceId: ws.id, facilityId: f.id, createdBy: owner.id, input: { format: "csv" } });
   // Finished with a file, as the worker leaves it (no worker runs in this test).
   await db.update(jobs).set({ status: "done", progress: 1, finishedAt: new Date(), resultName: `secret-${tag}.csv`, resultMime: "text/csv", resultBytes: Buffer.from(`secret file ${tag}`) }).where(eq(jobs.id, job.id));
+  await storeWeather(ws.id, f.id, owner, { kind: "file", label: `Secret weather ${tag}`, year: 2025, startWeekday: 2, dryBulbC: Array(8760).fill(10), rhPct: Array(8760).fill(70), notes: [] });
   const { invite } = await createInvite(ws.id, owner.id, `invitee-${tag.toLowerCase()}-${ws.slug}@example.test`, "viewer");
   return {
     slug: ws.slug,
@@ -123,7 +128,7 @@ async function makeSide(tag: string): Promise<Side> {
     job: job.id,
     invite: invite.id,
     member: member.id,
-    secrets: [name, `Secret check ${tag}`, `Secret option ${tag}`, `secret-${tag}.csv`, `secret file ${tag}`, member.email, `invitee-${tag.toLowerCase()}`],
+    secrets: [name, `Secret weather ${tag}`, `Secret check ${tag}`, `Secret option ${tag}`, `secret-${tag}.csv`, `secret file ${tag}`, member.email, `invitee-${tag.toLowerCase()}`],
   };
 }
 
@@ -147,6 +152,9 @@ async function fingerprint(): Promise<Record<string, string>> {
     memberships: await q(memberships, sql`workspace_id in (${inWs})`),
     invites: await q(invites, sql`workspace_id in (${inWs})`),
     audit: await q(auditLog, sql`workspace_id in (${inWs})`),
+    workspaces: await q(workspaces, sql`id in (${inWs})`),
+    weather: await q(weatherYears, sql`workspace_id in (${inWs}) or facility_id in ${fac}`),
+    annual: await q(annualResults, sql`workspace_id in (${inWs}) or facility_id in ${fac}`),
   };
 }
 
@@ -171,6 +179,13 @@ const csvForm = (text: string, mode: "preview" | "commit") => () => {
 };
 const ROOMS_CSV = "Name,Length [m],Width [m],Height [m],Set point [°C],Construction\nNew chiller,20,10,8,4,PIR 120\n";
 const STOCKING_CSV = "Room;Intake [t/day];Entering [°C]\napples;12,5;18\n";
+const WEATHER_CSV = ["Hour,Dry bulb [°C],Relative humidity [%]", ...Array.from({ length: 8760 }, (_, i) => `${i + 1},12.5,70`)].join("\n");
+const weatherForm = () => {
+  const f = new FormData();
+  f.set("file", new File([WEATHER_CSV], "year.csv", { type: "text/csv" }));
+  return f;
+};
+const MONTHLY = { year: 2025, climate: { label: "Stranger's climate", meanDryBulbC: Array(12).fill(10), dailyRangeK: Array(12).fill(8), meanRhPct: Array(12).fill(75) } };
 
 /** Every route that names a resource of a workspace by id, each method (bodies valid, so only the ids can refuse). */
 const CASES: Case[] = [
@@ -203,6 +218,11 @@ const CASES: Case[] = [
   { name: "scenario accept", mod: scenarioAcceptRoute, method: "POST", params: sce },
   { name: "scenario apply", mod: scenarioApplyRoute, method: "POST", params: sce },
   { name: "scenario email", mod: scenarioEmailRoute, method: "POST", params: sce, body: () => ({ json: { to: ["stranger@example.test"] } }) },
+  { name: "weather GET", mod: weatherRoute, method: "GET", params: fac },
+  { name: "weather upload", mod: weatherRoute, method: "POST", params: fac, body: () => ({ form: weatherForm }) },
+  { name: "weather monthly", mod: weatherRoute, method: "PUT", params: fac, body: () => ({ json: MONTHLY }) },
+  { name: "energy GET", mod: energyRoute, method: "GET", params: fac },
+  { name: "energy run", mod: energyRoute, method: "POST", params: fac },
   { name: "job GET", mod: jobRoute, method: "GET", params: (slug, s) => ({ ws: slug, id: s.job }) },
   { name: "job result GET", mod: jobResultRoute, method: "GET", params: (slug, s) => ({ ws: slug, id: s.job }) },
   { name: "invite DELETE", mod: inviteRoute, method: "DELETE", params: (slug, s) => ({ ws: slug, inviteId: s.invite }) },
@@ -223,6 +243,8 @@ const WS_CASES: Case[] = [
   { name: "members GET", mod: membersRoute, method: "GET", params: (slug) => ({ ws: slug }) },
   { name: "invites POST", mod: invitesRoute, method: "POST", params: (slug) => ({ ws: slug }), body: () => ({ json: { email: "stranger-friend@example.test", role: "owner" } }) },
   { name: "audit GET", mod: auditRoute, method: "GET", params: (slug) => ({ ws: slug }) },
+  { name: "settings GET", mod: settingsRoute, method: "GET", params: (slug) => ({ ws: slug }) },
+  { name: "settings PATCH", mod: settingsRoute, method: "PATCH", params: (slug) => ({ ws: slug }), body: () => ({ json: { currency: "JPY" } }) },
 ];
 
 async function send(c: Case, params: Record<string, string>, ids: Side): Promise<{ status: number; text: string }> {

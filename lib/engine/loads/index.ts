@@ -54,5 +54,5 @@ export { respirationWPerKg } from "./respiration";
 export { plankFreezingTimeS, phamFreezingTimeS, airSurfaceCoefficientWm2K, effectiveSurfaceCoefficientWm2K, SHAPE_FACTORS } from "./freezing";
 export { gosneyOlamaFullyOpen, doorwayOpenTimeFactor, defaultFlowFactor, PROTECTION_EFFECTIVENESS, DOCK_SEAL_EFFECTIVENESS } from "./infiltration";
 export { uValue, solarAllowanceK, SOLAR_ALLOWANCE_K, INSIDE_FILM_M2KW, OUTSIDE_FILM_M2KW } from "./transmission";
-export { sitePressurePa, airFromRH, airFromWetBulb } from "./psychro";
+export { sitePressurePa, airFromRH, airFromWetBulb, rhPctFromDewPoint, rhPctFromWetBulb } from "./psychro";
 export type { AirState } from "./psychro";

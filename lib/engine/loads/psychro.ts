@@ -68,3 +68,20 @@ export function airFromHumRatio(tempC: number, humRatio: number, pressurePa: num
 export function relativeHumidityPct(air: AirState): number {
   return 100 * psychrolib.GetRelHumFromHumRatio(air.tempC, air.humRatio, air.pressurePa);
 }
+
+/**
+ * Relative humidity (percent) from dry bulb and dew point: `RH = p_ws(t_dp) / p_ws(t)`
+ * (ASHRAE Handbook—Fundamentals psychrometric equations, via psychrolib
+ * `GetRelHumFromTDewPoint`). The dew point must not exceed the dry bulb.
+ */
+export function rhPctFromDewPoint(tempC: number, dewPointC: number): number {
+  return 100 * psychrolib.GetRelHumFromTDewPoint(tempC, dewPointC);
+}
+
+/**
+ * Relative humidity (percent) from dry bulb and thermodynamic wet bulb at a pressure
+ * (ASHRAE Handbook—Fundamentals, via psychrolib `GetRelHumFromTWetBulb`).
+ */
+export function rhPctFromWetBulb(tempC: number, wetBulbC: number, pressurePa: number): number {
+  return 100 * psychrolib.GetRelHumFromTWetBulb(tempC, wetBulbC, pressurePa);
+}

@@ -10,6 +10,7 @@ export default async function WorkspaceLayout({ children, params }: LayoutProps<
   const tabs = [
     { href: `/w/${ws}`, label: "Facilities", exact: true },
     { href: `/w/${ws}/team`, label: "Team" },
+    { href: `/w/${ws}/settings`, label: "Settings" },
     ...(can(a.access.role, "audit.read") ? [{ href: `/w/${ws}/audit`, label: "Audit log" }] : []),
   ];
   return (

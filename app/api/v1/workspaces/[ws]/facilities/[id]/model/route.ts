@@ -5,6 +5,7 @@ import { facilityParams } from "@/features/facilities/schema";
 import { saveModelSchema } from "@/features/facilities/model-schema";
 import { loadFacilityModel, saveFacilityModel } from "@/features/facilities/model";
 import type { ModelDoc } from "@/features/facilities/engine-model";
+import { rerunAfterModelChange } from "@/features/energy/runs";
 
 export const GET = route({
   params: facilityParams,
@@ -38,6 +39,8 @@ export const PUT = route({
       targetId: params.id,
       detail: { version: r.version, baseVersion: body.baseVersion, rebased: r.rebased, summary: body.summary ?? null },
     });
+    // A new version re-runs the facility's year on the worker (when it has a weather year).
+    if (r.version !== body.baseVersion || r.rebased) await rerunAfterModelChange(access!.workspace.id, params.id, user.id);
     return r;
   },
 });
