@@ -10,6 +10,7 @@ import { CODES_NOTICE } from "@/lib/engine/plant/safety";
 import { loadFacilityModel, saveFacilityModel } from "@/features/facilities/model";
 import type { ModelDoc } from "@/features/facilities/engine-model";
 import { annualForPlants } from "./annual";
+import { rerunAfterModelChange } from "@/features/energy/runs";
 import type { OptionsDto } from "./schema";
 
 /**
@@ -20,7 +21,12 @@ import type { OptionsDto } from "./schema";
 export async function computeComparison(workspaceId: string, model: FacilityModel, facilityId: string): Promise<{ comparison: OptionsComparison; weather: OptionsDto["weather"]; annualNote: string | null; currency: string }> {
   await Promise.all(optionFluidsNeeded(model).map((id) => loadFluid(id)));
   const annual = await annualForPlants(workspaceId, facilityId, model);
-  return { comparison: compareOptions(model, { getFluid, annual: annual.byPlant as ReadonlyMap<string, AnnualSummary> }), weather: annual.weather, annualNote: annual.note, currency: annual.currency };
+  return {
+    comparison: compareOptions(model, { getFluid, annual: annual.byPlant as ReadonlyMap<string, AnnualSummary>, annualErrors: annual.errors }),
+    weather: annual.weather,
+    annualNote: annual.note,
+    currency: annual.currency,
+  };
 }
 
 export async function optionsDto(workspaceId: string, facilityId: string): Promise<OptionsDto> {
@@ -68,6 +74,8 @@ export async function editOptions(args: {
     targetId: args.facilityId,
     detail: { version: r.version, baseVersion: m.version, rebased: r.rebased, summary: args.summary },
   });
+  // As after any model edit: the facility's stored year is queued again (the design may have changed).
+  if (r.version !== m.version) await rerunAfterModelChange(args.workspaceId, args.facilityId, args.user.id);
   return { version: r.version };
 }
 

@@ -72,3 +72,36 @@ describe("options comparison", () => {
     expect(bestOf([2, undefined], "lower")).toEqual([]);
   });
 });
+
+describe("the year of every plant", () => {
+  it("runs the annual engine on each plant with the shared rooms and weather; a copy of the design gives the design's year exactly", async () => {
+    const { runAnnual, sineDayYear } = await import("./annual");
+    const { runOptionsAnnual } = await import("./compare-options");
+    // Invented temperate monthly climate (not a real site), sine-day year of the annual engine.
+    const weather = sineDayYear({ label: "invented temperate", meanDryBulbC: [3, 4, 7, 10, 14, 17, 19, 19, 16, 12, 7, 4], dailyRangeK: [6, 7, 8, 9, 10, 10, 10, 10, 9, 8, 6, 5], meanRhPct: [85, 82, 78, 74, 72, 72, 72, 74, 78, 82, 85, 86] }, 2025);
+    let d: Record<string, unknown> = { schemaVersion: 1, ...structuredClone(ledger), plant: structuredClone(plant) };
+    d = addOption(d, { id: "copy", name: "Copy" });
+    d = addOption(d, { id: "cascade", name: "CO2/NH3 cascade" });
+    const o = (d.plantOptions as { plant: typeof plant }[])[1].plant;
+    o.circuits[0] = { ...o.circuits[0], refrigerant: "R744", arrangement: "single-stage", heatRejection: { to: "circuit", circuitId: "mt", condensingC: -5, approachK: 5 } };
+    const m = facilityModelSchema.parse(d);
+    const r = runOptionsAnnual(m, weather, { getFluid });
+    expect([...r.errors]).toEqual([]);
+    const direct = runAnnual(m, weather, { getFluid }).facility;
+    expect(r.byPlant.get("design")!.kWh).toBe(direct.kWh);
+    expect(r.byPlant.get("copy")!.kWh).toBe(direct.kWh);
+    expect(r.byPlant.get("copy")!.monthly.map((x) => x.kWh)).toEqual(direct.monthly.map((x) => x.kWh));
+    const cascade = r.byPlant.get("cascade")!;
+    expect(cascade.kWh).toBeGreaterThan(0);
+    expect(cascade.kWh).not.toBe(direct.kWh);
+    expect(cascade.monthly).toHaveLength(12);
+    // Second law over the year: the seasonal COP never exceeds the seasonal Carnot COP.
+    for (const a of r.byPlant.values()) expect(a.seasonalCOP!).toBeLessThan(a.seasonalCarnotCOP!);
+    // Fed into the comparison, TEWI's indirect part is n·E·β of each plant's own year.
+    const c = compareOptions(m, { getFluid, annual: r.byPlant });
+    const k = c.options.find((x) => x.id === "cascade")!;
+    expect(k.tewi!.indirectKnown).toBe(true);
+    expect(k.tewi!.indirectKg).toBeCloseTo(15 * cascade.kWh * 0.25, 6);
+    console.log(`annual per plant, ms: ${[...r.ms].map(([id, t]) => `${id} ${t}`).join(", ")}`);
+  }, 120_000);
+});

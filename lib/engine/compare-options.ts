@@ -11,13 +11,15 @@ import { alternativesOf, type PlantAlternative } from "./options";
 import { estimateCharge, type ChargeEstimate } from "./plant/charge";
 import { codeAid, PRACTICAL_LIMITS, tewi, TEWI_FORMULA, type CodeAid, type TewiResult } from "./plant/tewi";
 import { fluidsNeeded } from "./plant/plant";
+import { runAnnual, type WeatherYear } from "./annual";
 
 /** What the comparison needs of a plant's year (a subset of the annual engine's result). */
 export interface AnnualSummary {
   kWh: number;
   monthly: { kWh: number; loadKWh?: number; meanCOP?: number }[];
   peakKWe: number;
-  seasonalCOP: number;
+  /** Undefined when the year has no load. */
+  seasonalCOP?: number;
   seasonalCarnotCOP?: number;
   cost?: { energy: number; demand: number; total: number };
   /** The weather year's label, shown with the figures. */
@@ -51,6 +53,8 @@ export interface OptionFigures {
   tewi?: TewiResult & { indirectKnown: boolean };
   codeAid?: CodeAid[];
   annual?: AnnualSummary;
+  /** Why the year of this plant could not be computed (the other figures stand). */
+  annualError?: string;
   /** Running cost after 0…n years (undiscounted), in the workspace currency; needs the annual cost. */
   costOverYears?: number[];
   assumptions: { leakPctPerYear: number; recoveryPct: number; practicalLimitKgM3?: number; practicalLimitSource?: string };
@@ -67,6 +71,8 @@ export interface CompareArgs {
   getFluid: (id: FluidId) => Fluid;
   /** Per plant id ("design" or an option id): its annual summary, when a weather year exists. */
   annual?: ReadonlyMap<string, AnnualSummary>;
+  /** Per plant id: why its year could not be computed. */
+  annualErrors?: ReadonlyMap<string, string>;
 }
 
 /** Every refrigerant the design and the options need loaded. */
@@ -118,6 +124,7 @@ function figuresOf(model: FacilityModel, alt: PlantAlternative, study: FacilityM
   const totalKg = charge.totalKg;
   const gwpWeighted = totalKg > 0 ? refrigerants.reduce((s, f) => s + f.gwp100 * f.chargeKg, 0) / totalKg : 0;
   const annual = args.annual?.get(alt.id);
+  const annualError = args.annualErrors?.get(alt.id);
   // Direct TEWI summed refrigerant by refrigerant (each with its own GWP); indirect once, from the year's kWh.
   const direct = refrigerants.map((f) =>
     tewi({ gwp: f.gwp100, chargeKg: f.chargeKg, leakFractionPerYear: a.leakPctPerYear / 100, years: study.years, recoveryFraction: a.recoveryPct / 100, annualKWh: 0, gridKgCo2PerKWh: study.gridKgCo2PerKWh }),
@@ -157,6 +164,7 @@ function figuresOf(model: FacilityModel, alt: PlantAlternative, study: FacilityM
     tewi: tewiResult,
     codeAid: aids,
     annual,
+    annualError,
     costOverYears: costPerYear === undefined ? undefined : Array.from({ length: study.years + 1 }, (_, y) => y * costPerYear),
   };
 }
@@ -173,3 +181,44 @@ export function compareOptions(model: FacilityModel, args: CompareArgs): Options
 }
 
 export { BETTER, bestOf } from "./compare-best";
+
+/**
+ * The year of every plant (design and options) on one weather year, by the annual engine.
+ * The operation section (schedules, tariff) is shared; its per-circuit entries apply to the
+ * plants that have a circuit of that id and are left out for the others. A plant the engine
+ * refuses gets its error instead of figures, and the others are still computed.
+ */
+export function runOptionsAnnual(
+  model: FacilityModel,
+  weather: WeatherYear,
+  opts: { getFluid: (id: FluidId) => Fluid; method?: "fast" | "direct" },
+): { byPlant: Map<string, AnnualSummary>; errors: Map<string, string>; ms: Map<string, number> } {
+  const byPlant = new Map<string, AnnualSummary>();
+  const errors = new Map<string, string>();
+  const ms = new Map<string, number>();
+  const op = (model as { operation?: { circuits?: Record<string, unknown> } }).operation;
+  for (const alt of alternativesOf(model)) {
+    if (alt.plant.circuits.length === 0) continue;
+    const ids = new Set(alt.plant.circuits.map((c) => c.id));
+    const operation = op?.circuits ? { ...op, circuits: Object.fromEntries(Object.entries(op.circuits).filter(([id]) => ids.has(id))) } : op;
+    const m = { ...withPlant(model, alt.plant), ...(operation ? { operation } : {}) } as FacilityModel;
+    const t0 = Date.now();
+    try {
+      const r = runAnnual(m, weather, { getFluid: opts.getFluid, method: opts.method });
+      const f = r.facility;
+      byPlant.set(alt.id, {
+        kWh: f.kWh,
+        monthly: f.monthly.map((x) => ({ kWh: x.kWh, loadKWh: x.loadKWh, meanCOP: x.meanCOP ?? undefined })),
+        peakKWe: f.peakKWe,
+        seasonalCOP: f.seasonalCOP ?? undefined,
+        seasonalCarnotCOP: f.seasonalCarnotCOP ?? undefined,
+        cost: f.cost,
+        weatherLabel: r.weather.label,
+      });
+    } catch (e) {
+      errors.set(alt.id, e instanceof Error ? e.message : String(e));
+    }
+    ms.set(alt.id, Date.now() - t0);
+  }
+  return { byPlant, errors, ms };
+}

@@ -43,7 +43,7 @@ export function OptionsReportTable({ c, unitSystem: s, currency, weatherLabel, c
                 <td className={tdn}>{o.designElectricalW !== undefined ? fmt.power(o.designElectricalW, s, "electrical") : dash}</td>
                 <td className={tdn}>{o.annual ? fmt.number(o.annual.kWh, 0) : dash}</td>
                 <td className={tdn}>{o.annual?.cost ? fmt.number(o.annual.cost.total, 0) : dash}</td>
-                <td className={tdn}>{o.annual ? fmt.cop(o.annual.seasonalCOP) : dash}</td>
+                <td className={tdn}>{o.annual?.seasonalCOP !== undefined ? fmt.cop(o.annual.seasonalCOP) : dash}</td>
                 <td className={tdn}>{o.charge ? fmt.mass(o.charge.totalKg, s) : dash}</td>
                 <td className={tdn}>{o.tewi ? `${fmt.number(o.tewi.directKg / 1000, 1)} / ${o.tewi.indirectKnown ? fmt.number(o.tewi.indirectKg / 1000, 1) : "—"}` : dash}</td>
                 <td className={tdn}>{ratios.length ? `${fmt.number(Math.max(...ratios), 2)}${Math.max(...ratios) > 1 ? " ▲ over" : " ✓"}` : dash}</td>

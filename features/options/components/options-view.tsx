@@ -183,14 +183,14 @@ export function OptionsView({ ws, facilityId, unitSystem: s, initial, canEdit, c
             </tr>
           </thead>
           <tbody>
-            {opts.some((o) => o.error) ? (
+            {opts.some((o) => o.error || o.annualError) ? (
               <tr>
                 <th scope="row" className="p-2 text-left font-medium">
                   Status
                 </th>
                 {opts.map((o) => (
                   <td key={o.id} className="p-2 align-top text-xs">
-                    {o.error ? <span className="text-danger">⚠ {o.error.message}</span> : "✓ computed"}
+                    {o.error ? <span className="text-danger">⚠ {o.error.message}</span> : o.annualError ? <span className="text-warn">⚠ the year could not be computed: {o.annualError}</span> : "✓ computed"}
                   </td>
                 ))}
               </tr>
