@@ -57,7 +57,7 @@ test.describe.serial("plant options", () => {
         await page.getByLabel("New option name").fill(name);
         await page.getByRole("button", { name: "Create option" }).click();
         await expect(page.getByRole("status")).toContainText(`Option "${name}" created`);
-        await expect(page.locator(`th[data-option="${name}"]`)).toBeVisible();
+        await expect(page.locator(`th[data-option="${name}"]`)).toBeVisible({ timeout: 30_000 }); // the year of every plant is recomputed
       }
       // An empty name is refused beside the field, naming it.
       await page.getByLabel("New option name").fill("  ");
@@ -100,11 +100,11 @@ test.describe.serial("plant options", () => {
       await page.getByRole("button", { name: "Rename Two LT standbys" }).click();
       await page.getByLabel("New name of Two LT standbys").fill("Second LT standby");
       await page.getByRole("button", { name: "Save", exact: true }).first().click();
-      await expect(page.locator('th[data-option="Second LT standby"]')).toBeVisible();
+      await expect(page.locator('th[data-option="Second LT standby"]')).toBeVisible({ timeout: 30_000 });
       const before = (await (await page.request.get(`${api()}/revisions`)).json()).current;
       await page.getByRole("button", { name: "Make Second LT standby the design" }).click();
       await expect(page.getByRole("status")).toContainText('"Second LT standby" is now the design');
-      await expect(headers.first()).toContainText("Second LT standby");
+      await expect(headers.first()).toContainText("Second LT standby", { timeout: 30_000 });
       await expect(page.locator('th[data-option="Design"]')).toBeVisible();
       expect((await (await page.request.get(`${api()}/revisions`)).json()).current).toBe(before + 1);
       const after = await (await page.request.get(`${api()}/model`)).json();
