@@ -33,7 +33,8 @@ test.beforeAll(async ({ baseURL }) => {
     facilityId = (await r.json()).facility.id;
   }
   const m = await (await designer.get(`${api()}/model`)).json();
-  const doc = { ...fixture("seeds/data/harrowfield-model.json"), plantOptions: [] };
+  // An invented flat tariff, so the running cost has figures (0.20 per kWh, 8 per kW of monthly peak).
+  const doc = { ...fixture("seeds/data/harrowfield-model.json"), plantOptions: [], operation: { tariff: { kind: "flat", pricePerKWh: 0.2, demandChargePerKWMonth: 8 } } };
   const saved = await designer.put(`${api()}/model`, { data: { baseVersion: m.version, doc, summary: "options e2e: start" } });
   expect(saved.status(), await saved.text()).toBe(200);
   await designer.dispose();
@@ -44,6 +45,7 @@ test.describe.serial("plant options", () => {
     test.use({ storageState: stateOf("designer") });
 
     test("uploads a weather file, makes two options and sees them compared, the best of each row marked in words", async ({ page }) => {
+      test.setTimeout(300_000); // every edit recomputes the year of three plants on a shared machine
       const up = await page.request.post(`${api()}/weather`, { multipart: { file: { name: "invented-year.csv", mimeType: "text/csv", buffer: Buffer.from(WEATHER_CSV) } } });
       expect(up.status(), await up.text()).toBeLessThan(300);
 
@@ -81,9 +83,12 @@ test.describe.serial("plant options", () => {
       await expect(headers.first()).toContainText("Design");
       await expect(headers.first()).toContainText("design");
       // Every figure row has values for all three plants, the year included (weather uploaded).
-      for (const row of ["installedRefrigerationW", "annualKWh", "seasonalCOP", "chargeKg", "gwpWeighted", "tewiDirect", "tewiIndirect", "codeAidRatio"])
+      for (const row of ["installedRefrigerationW", "annualKWh", "annualCost", "seasonalCOP", "chargeKg", "gwpWeighted", "tewiDirect", "tewiIndirect", "codeAidRatio"])
         await expect(page.locator(`tr[data-row="${row}"] td`).filter({ hasNotText: /^—$/ })).toHaveCount(3);
       await expect(page.locator('tr[data-row="safety"]')).toContainText("R744 A1");
+      // The cascade uses more energy here than the ammonia plants, so it is not the cheapest to run.
+      await expect(page.locator('tr[data-row="annualCost"] td').nth(1)).not.toHaveAttribute("data-best", "true");
+      await expect(page.locator('tr[data-row="annualCost"] td').first()).toContainText("EUR");
       await expect(page.locator('tr[data-row="gwpWeighted"]')).toContainText("R717 0");
       // The best of a row is marked by text: ammonia only (GWP 0) has no direct TEWI.
       const bestDirect = page.locator('tr[data-row="tewiDirect"] td[data-best="true"]');
@@ -117,6 +122,7 @@ test.describe.serial("plant options", () => {
     test.use({ storageState: stateOf("purchaser") });
 
     test("downloads the comparison: its own sheets beside the schedule's, units in the headers, full-precision numbers", async ({ page }) => {
+      test.setTimeout(180_000);
       await page.goto(`/w/${WS}/f/${facilityId}/options`);
       await expect(page.locator("thead th[data-option]")).toHaveCount(3);
       await expect(page.getByRole("button", { name: "Create option" })).toHaveCount(0);
@@ -161,6 +167,7 @@ test.describe.serial("plant options", () => {
     test.use({ storageState: stateOf("viewer") });
 
     test("reads the comparison and cannot create, rename, delete or make an option the design", async ({ page }) => {
+      test.setTimeout(120_000);
       await page.goto(`/w/${WS}/f/${facilityId}/options`);
       await expect(page.locator("thead th[data-option]")).toHaveCount(3);
       await expect(page.locator('tr[data-row="annualKWh"]')).toBeVisible();
