@@ -16,11 +16,12 @@ export const BETTER: Record<string, "lower" | "higher"> = {
   codeAidRatio: "lower",
 };
 
-/** Index of the best value (ties: all of them), ignoring missing values. */
+/** Index of the best value (ties: all of them), ignoring missing values; none when every plant has the same figure. */
 export function bestOf(values: (number | undefined)[], better: "lower" | "higher"): number[] {
   const present = values.filter((v): v is number => v !== undefined && Number.isFinite(v));
   if (present.length < 2) return [];
   const best = better === "lower" ? Math.min(...present) : Math.max(...present);
   const tol = Math.abs(best) * 1e-9;
-  return values.flatMap((v, i) => (v !== undefined && Math.abs(v - best) <= tol ? [i] : []));
+  const at = values.flatMap((v, i) => (v !== undefined && Number.isFinite(v) && Math.abs(v - best) <= tol ? [i] : []));
+  return at.length === present.length ? [] : at;
 }

@@ -70,6 +70,9 @@ describe("options comparison", () => {
     expect(bestOf([3, undefined, 5], "higher")).toEqual([2]);
     expect(bestOf([2, 2, 3], "lower")).toEqual([0, 1]);
     expect(bestOf([2, undefined], "lower")).toEqual([]);
+    // Every plant the same (e.g. all ammonia, B2L): nothing is marked best.
+    expect(bestOf([4, 4, 4], "lower")).toEqual([]);
+    expect(bestOf([4, undefined, 4], "higher")).toEqual([]);
   });
 });
 
