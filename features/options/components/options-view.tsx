@@ -139,7 +139,7 @@ export function OptionsView({ ws, facilityId, unitSystem: s, initial, canEdit, c
           <h2 className="text-base font-semibold">Plant options</h2>
           <p className="text-xs text-muted">
             The same rooms, different plant: {opts.length} plant{opts.length === 1 ? "" : "s"} compared · version {d.version} ·{" "}
-            {d.weather ? `weather: ${d.weather.label} (${d.weather.year})` : "no weather year"} · computed on the server in {fmt.number(d.computeMs / 1000, 2)} s
+            {d.weather ? `weather: ${d.weather.label}${d.weather.label.includes(String(d.weather.year)) ? "" : ` (${d.weather.year})`}` : "no weather year"} · computed on the server in {fmt.number(d.computeMs / 1000, 2)} s
           </p>
         </div>
         {canExport ? (
