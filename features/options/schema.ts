@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { optionNameSchema, assessmentSchema, plantStudySchema } from "@/lib/engine/options";
+import { chargeOverrideSchema } from "@/lib/engine/plant/charge";
 import type { OptionsComparison } from "@/lib/engine/compare-options";
 import type { PracticalLimit } from "@/lib/engine/plant/tewi";
 
@@ -21,6 +22,8 @@ const assessmentPatch = z.object({
   /** null clears the user's limit (back to the table's value). */
   practicalLimitKgM3: assessmentSchema.shape.practicalLimitKgM3.unwrap().nullable().optional(),
   practicalLimitSource: z.string().max(200, "must be at most 200 characters").nullable().optional(),
+  /** The user's internal volumes and fill fractions by part key; replaces the stored list. */
+  chargeOverrides: z.array(chargeOverrideSchema).max(500, "at most 500 overrides").optional(),
 });
 
 /** Rename a plant ("design" or an option) and/or change its assessment inputs. */

@@ -101,6 +101,18 @@ test.describe.serial("plant options", () => {
       await expect(page.locator("figure svg.recharts-surface").first()).toBeVisible();
       await page.screenshot({ path: ".run/test/screenshots/options-compare.png", fullPage: true });
 
+      // The user's own internal volume for a part replaces the default (the manufacturer's receiver: 2000 dm³, half full).
+      await page.getByText("Charge estimate, part by part").click();
+      const receiver = page.locator('form[aria-label="Charge estimate of Design"] tr[data-part="receiver:lt"]');
+      await expect(receiver).toContainText("common practice");
+      await page.getByLabel("Design C-1 High-pressure receiver volume, dm³").fill("2000");
+      await page.getByLabel("Design C-1 High-pressure receiver liquid fraction").fill("0.5");
+      await page.getByRole("button", { name: "Save volumes of Design" }).click();
+      await expect(receiver).toContainText("volume entered by the user", { timeout: 30_000 });
+      await expect(receiver.locator("td").nth(2)).toHaveText("2,000.0");
+      const stored = await (await page.request.get(`${api()}/model`)).json();
+      expect(stored.doc.plantStudy.designAssessment.chargeOverrides).toEqual([{ id: "receiver:lt", volumeM3: 2, liquidFraction: 0.5 }]);
+
       // Rename one, then make the other the design: a new revision, the former design kept as an option.
       await page.getByRole("button", { name: "Rename Two LT standbys" }).click();
       await page.getByLabel("New name of Two LT standbys").fill("Second LT standby");

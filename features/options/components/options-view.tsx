@@ -382,43 +382,8 @@ export function OptionsView({ ws, facilityId, unitSystem: s, initial, canEdit, c
 
       <details className="rounded border border-line bg-surface p-3 text-sm">
         <summary className="cursor-pointer font-semibold">Charge estimate, part by part</summary>
-        {opts.map((o) =>
-          o.charge ? (
-            <div key={o.id} className="mt-2">
-              <h3 className="text-sm font-semibold">{o.name}</h3>
-              <table className="w-full text-xs tabular-nums">
-                <thead>
-                  <tr className="text-left text-muted">
-                    <th className="pr-2">Circuit</th>
-                    <th className="pr-2">Part</th>
-                    <th className="pr-2 text-right">Volume [dm³]</th>
-                    <th className="pr-2 text-right">Liquid fraction</th>
-                    <th className="pr-2 text-right">At [{s === "SI" ? "°C" : "°F"}]</th>
-                    <th className="pr-2 text-right">Mean density [kg/m³]</th>
-                    <th className="pr-2 text-right">Charge [kg]</th>
-                    <th>Basis</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {o.charge.circuits.flatMap((c) =>
-                    c.parts.map((p) => (
-                      <tr key={p.key} className="border-t border-line">
-                        <td className="pr-2">{c.tag}</td>
-                        <td className="pr-2">{p.label}</td>
-                        <td className="pr-2 text-right">{fmt.number(p.volumeM3 * 1000, 1)}</td>
-                        <td className="pr-2 text-right">{fmt.number(p.liquidFraction, 2)}</td>
-                        <td className="pr-2 text-right">{fmt.temp(p.tempC, s)}</td>
-                        <td className="pr-2 text-right">{fmt.number(p.meanDensityKgM3, 1)}</td>
-                        <td className="pr-2 text-right">{fmt.number(p.massKg, 1)}</td>
-                        <td className="text-muted">{p.basis}</td>
-                      </tr>
-                    )),
-                  )}
-                </tbody>
-              </table>
-            </div>
-          ) : null,
-        )}
+        <p className="mt-1 text-xs text-muted">m = V·(φ·ρ_liquid + (1 − φ)·ρ_vapour) per part, densities from the property engine at the part&apos;s saturation state. Default volumes and fill fractions are common practice; {canEdit ? "enter the manufacturers' internal volumes and measured pipe runs to replace them (empty: the default)." : "a designer can replace them with the manufacturers' volumes."}</p>
+        {opts.map((o) => (o.charge ? <ChargeTable key={o.id} o={o} s={s} canEdit={canEdit} base={base} busy={m.isPending} run={m.mutate} /> : null))}
       </details>
     </main>
   );
@@ -552,6 +517,90 @@ function StudyForm({ years, grid, base, busy, run }: { years: number; grid: numb
       <Button type="submit" disabled={busy}>
         Save
       </Button>
+    </form>
+  );
+}
+
+function ChargeTable({ o, s, canEdit, base, busy, run }: { o: OptionFigures; s: UnitSystem; canEdit: boolean; base: string; busy: boolean; run: Run }) {
+  const parts = o.charge!.circuits.flatMap((c) => c.parts.map((p) => ({ c, p })));
+  const [vals, setVals] = useState<Record<string, { vol: string; phi: string }>>(() =>
+    Object.fromEntries(parts.map(({ p }) => [p.key, { vol: p.volumeSource === "user" ? String(p.volumeM3 * 1000) : "", phi: p.fractionSource === "user" ? String(p.liquidFraction) : "" }])),
+  );
+  const [err, setErr] = useState<string | null>(null);
+  function save(e: React.FormEvent) {
+    e.preventDefault();
+    const overrides: { id: string; volumeM3?: number; liquidFraction?: number }[] = [];
+    for (const { p } of parts) {
+      const v = vals[p.key] ?? { vol: "", phi: "" };
+      const o2: { id: string; volumeM3?: number; liquidFraction?: number } = { id: p.key };
+      if (v.vol.trim() !== "") {
+        const dm3 = Number(v.vol);
+        if (!Number.isFinite(dm3) || dm3 < 0 || dm3 > 1_000_000) return setErr(`${p.label}: volume must be between 0 and 1 000 000 dm³`);
+        o2.volumeM3 = dm3 / 1000;
+      }
+      if (v.phi.trim() !== "") {
+        const f = Number(v.phi);
+        if (!Number.isFinite(f) || f < 0 || f > 1) return setErr(`${p.label}: liquid fraction must be between 0 and 1`);
+        o2.liquidFraction = f;
+      }
+      if (o2.volumeM3 !== undefined || o2.liquidFraction !== undefined) overrides.push(o2);
+    }
+    setErr(null);
+    run({ path: `${base}/${encodeURIComponent(o.id)}`, method: "PATCH", json: { chargeOverrides: overrides }, done: `Charge volumes of "${o.name}" saved (${overrides.length} part${overrides.length === 1 ? "" : "s"} entered).` });
+  }
+  const set = (key: string, field: "vol" | "phi", v: string) => setVals((x) => ({ ...x, [key]: { ...(x[key] ?? { vol: "", phi: "" }), [field]: v } }));
+  return (
+    <form className="mt-3" onSubmit={save} aria-label={`Charge estimate of ${o.name}`}>
+      <h3 className="text-sm font-semibold">
+        {o.name}: {fmt.mass(o.charge!.totalKg, s)}
+      </h3>
+      <table className="w-full text-xs tabular-nums">
+        <thead>
+          <tr className="text-left text-muted">
+            <th className="pr-2">Circuit</th>
+            <th className="pr-2">Part</th>
+            <th className="pr-2 text-right">Volume [dm³]</th>
+            <th className="pr-2 text-right">Liquid fraction φ</th>
+            <th className="pr-2 text-right">At</th>
+            <th className="pr-2 text-right">Mean density [kg/m³]</th>
+            <th className="pr-2 text-right">Charge [kg]</th>
+            <th>Basis</th>
+            {canEdit ? <th className="pl-2">Your volume [dm³] · φ</th> : null}
+          </tr>
+        </thead>
+        <tbody>
+          {parts.map(({ c, p }) => (
+            <tr key={p.key} className="border-t border-line" data-part={p.key}>
+              <td className="pr-2">{c.tag}</td>
+              <td className="pr-2">{p.label}</td>
+              <td className="pr-2 text-right">{fmt.number(p.volumeM3 * 1000, 1)}</td>
+              <td className="pr-2 text-right">{fmt.number(p.liquidFraction, 2)}</td>
+              <td className="pr-2 text-right">{fmt.temp(p.tempC, s)}</td>
+              <td className="pr-2 text-right">{fmt.number(p.meanDensityKgM3, 1)}</td>
+              <td className="pr-2 text-right">{fmt.number(p.massKg, 1)}</td>
+              <td className="text-muted">{p.basis}</td>
+              {canEdit ? (
+                <td className="whitespace-nowrap pl-2">
+                  <input aria-label={`${o.name} ${c.tag} ${p.label} volume, dm³`} inputMode="decimal" className="w-20 rounded border border-line bg-surface px-1" value={vals[p.key]?.vol ?? ""} onChange={(e) => set(p.key, "vol", e.target.value)} />{" "}
+                  <input aria-label={`${o.name} ${c.tag} ${p.label} liquid fraction`} inputMode="decimal" className="w-14 rounded border border-line bg-surface px-1" value={vals[p.key]?.phi ?? ""} onChange={(e) => set(p.key, "phi", e.target.value)} />
+                </td>
+              ) : null}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      {canEdit ? (
+        <div className="mt-1 flex items-center gap-2">
+          <Button type="submit" className="px-2 py-1 text-xs" disabled={busy}>
+            Save volumes of {o.name}
+          </Button>
+          {err ? (
+            <p role="alert" className="text-xs text-danger">
+              ⚠ {err}
+            </p>
+          ) : null}
+        </div>
+      ) : null}
     </form>
   );
 }
