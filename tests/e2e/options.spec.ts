@@ -126,6 +126,9 @@ test.describe.serial("plant options", () => {
       expect((await (await page.request.get(`${api()}/revisions`)).json()).current).toBe(before + 1);
       const after = await (await page.request.get(`${api()}/model`)).json();
       expect(after.doc.plant.circuits.find((c: { id: string }) => c.id === "lt").compressor.standbyUnits).toBe(2);
+      // The entered receiver volume went with its plant (now the option "Design"), and the forms show each plant's own values.
+      await expect(page.getByLabel("Design C-1 High-pressure receiver volume, dm³")).toHaveValue("2000");
+      await expect(page.getByLabel("Second LT standby C-1 High-pressure receiver volume, dm³")).toHaveValue("");
       await page.screenshot({ path: ".run/test/screenshots/options-made-design.png", fullPage: true });
     });
   });

@@ -177,7 +177,7 @@ export function OptionsView({ ws, facilityId, unitSystem: s, initial, canEdit, c
                 <th key={o.id} scope="col" className="p-2 text-left align-top" data-option={o.name}>
                   <span className="font-semibold">{o.name}</span>
                   {o.isDesign ? <span className="ml-2 rounded bg-accent/15 px-1.5 text-xs text-accent">design</span> : null}
-                  {canEdit ? <OptionActions o={o} base={base} busy={m.isPending} run={m.mutate} /> : null}
+                  {canEdit ? <OptionActions key={`${o.id}|${d.version}`} o={o} base={base} busy={m.isPending} run={m.mutate} /> : null}
                 </th>
               ))}
             </tr>
@@ -229,7 +229,7 @@ export function OptionsView({ ws, facilityId, unitSystem: s, initial, canEdit, c
                 <td key={o.id} className="p-2 align-top">
                   leak {fmt.number(o.assumptions.leakPctPerYear, 1)} %/year · recovery {fmt.number(o.assumptions.recoveryPct, 0)} % ·{" "}
                   {o.assumptions.practicalLimitKgM3 !== undefined ? `practical limit ${o.assumptions.practicalLimitKgM3} kg/m³ (${o.assumptions.practicalLimitSource ?? "entered"})` : "practical limit from the table"}
-                  {canEdit ? <AssessmentForm o={o} base={base} limits={d.practicalLimits} busy={m.isPending} run={m.mutate} /> : null}
+                  {canEdit ? <AssessmentForm key={`${o.id}|${d.version}`} o={o} base={base} limits={d.practicalLimits} busy={m.isPending} run={m.mutate} /> : null}
                 </td>
               ))}
             </tr>
@@ -383,7 +383,7 @@ export function OptionsView({ ws, facilityId, unitSystem: s, initial, canEdit, c
       <details className="rounded border border-line bg-surface p-3 text-sm">
         <summary className="cursor-pointer font-semibold">Charge estimate, part by part</summary>
         <p className="mt-1 text-xs text-muted">m = V·(φ·ρ_liquid + (1 − φ)·ρ_vapour) per part, densities from the property engine at the part&apos;s saturation state. Default volumes and fill fractions are common practice; {canEdit ? "enter the manufacturers' internal volumes and measured pipe runs to replace them (empty: the default)." : "a designer can replace them with the manufacturers' volumes."}</p>
-        {opts.map((o) => (o.charge ? <ChargeTable key={o.id} o={o} s={s} canEdit={canEdit} base={base} busy={m.isPending} run={m.mutate} /> : null))}
+        {opts.map((o) => (o.charge ? <ChargeTable key={`${o.id}|${d.version}`} o={o} s={s} canEdit={canEdit} base={base} busy={m.isPending} run={m.mutate} /> : null))}
       </details>
     </main>
   );
