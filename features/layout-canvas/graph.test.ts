@@ -107,6 +107,18 @@ describe("edits", () => {
     expect(d.rooms[0]).toBe(demo.rooms[0]);
   });
 
+  it("deleting a room takes the plant options' evaporators in it along, so every option stays valid", () => {
+    const withOptions = { ...demo, plantOptions: [{ id: "o1", name: "Alt", plant: structuredClone(demo.plant) }, { id: "o2", name: "No apples", plant: { circuits: demo.plant.circuits, condensers: demo.plant.condensers, evaporators: demo.plant.evaporators!.filter((e) => e.roomId !== "apples") } }] } as CanvasDoc;
+    const d = removeNodes(withOptions, ["room:apples"]);
+    const opts = d.plantOptions as { plant: { evaporators: { id: string; roomId: string }[] } }[];
+    expect(opts[0].plant.evaporators.map((e) => e.id)).not.toContain("ev-apples");
+    expect(opts[0].plant.evaporators).toHaveLength(demo.plant.evaporators!.length - 1);
+    expect(opts[1]).toBe((withOptions.plantOptions as unknown[])[1]);
+    const { doc } = pruneIncomplete(d);
+    const r = facilityModelSchema.safeParse(toEngineInput(doc, SITE));
+    expect(r.success ? [] : r.error.issues.map((i) => i.path.join("."))).toEqual([]);
+  });
+
   it("a half-drawn model still computes: unconnected items are left out and listed", () => {
     let d = addNode(demo, "door", gen).doc;
     d = addNode(d, "evaporator", gen).doc;

@@ -284,7 +284,31 @@ export function removeNodes(doc: CanvasDoc, nids: string[]): CanvasDoc {
         }),
       condensers: condensers(doc).filter((c) => !cds.has(c.id)),
     },
+    ...(rooms.size && Array.isArray(doc.plantOptions) ? { plantOptions: pruneOptionRooms(doc.plantOptions, rooms) } : {}),
   };
+}
+
+type OptionDoc = { plant?: { evaporators?: { roomId: string }[]; installed?: { evaporators?: { roomId: string }[] } } };
+
+/**
+ * Plant options share the rooms (lib/engine/options.ts): an option's evaporators (and installed
+ * evaporators) in a deleted room go with the room. Options without any keep their reference.
+ */
+function pruneOptionRooms(options: unknown[], rooms: Set<string>): unknown[] {
+  return options.map((o) => {
+    const p = (o as OptionDoc).plant;
+    const evs = p?.evaporators ?? [];
+    const inst = p?.installed?.evaporators ?? [];
+    if (!evs.some((e) => rooms.has(e.roomId)) && !inst.some((e) => rooms.has(e.roomId))) return o;
+    return {
+      ...(o as object),
+      plant: {
+        ...p,
+        evaporators: evs.filter((e) => !rooms.has(e.roomId)),
+        ...(p?.installed ? { installed: { ...p.installed, evaporators: inst.filter((e) => !rooms.has(e.roomId)) } } : {}),
+      },
+    };
+  });
 }
 
 export type IdGen = (prefix: string) => string;

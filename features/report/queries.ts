@@ -5,6 +5,7 @@ import { computeFacilityResults, getRevision, loadFacilityModel } from "@/featur
 import { parseEngineModel, type ModelDoc } from "@/features/facilities/engine-model";
 import type { SiteConditions } from "@/features/facilities/schema";
 import { revisionInfo } from "@/features/schedule/queries";
+import { computeComparison } from "@/features/options/queries";
 
 /** Everything the printable calculation report shows, for the current version or a stored revision. */
 export async function loadReport(workspaceId: string, facilityId: string, rev?: number) {
@@ -33,7 +34,9 @@ export async function loadReport(workspaceId: string, facilityId: string, rev?: 
   }
   const { result, inputHash, engineVersion } = await computeFacilityResults(model);
   const revision = await revisionInfo(facilityId, number);
-  return { facilityName: m.row.name, currentVersion: m.version, model, site, result, inputHash, engineVersion, schedule: buildSchedule(result.plant), revision, createdAt, issuedAt };
+  // Plant options of this version, compared (annual figures on the facility's current weather year).
+  const options = model.plantOptions.length ? await computeComparison(workspaceId, model, facilityId) : null;
+  return { facilityName: m.row.name, currentVersion: m.version, model, site, result, inputHash, engineVersion, schedule: buildSchedule(result.plant), revision, createdAt, issuedAt, options };
 }
 
 export type ReportData = Awaited<ReturnType<typeof loadReport>>;

@@ -36,7 +36,7 @@ export async function runScheduleExport(ctx: JobContext): Promise<JobOutput> {
   await ctx.progress(0.1, "Computing room loads, circuits and the equipment schedule");
   const p = await prepareExport({ workspaceId: job.workspaceId, facilityId: job.facilityId, user: who, kind: `schedule.${format}` });
   const n = p.input.schedule.length;
-  await ctx.progress(0.55, format === "xlsx" ? `Writing the workbook: ${n} items on 5 sheets` : `Writing the CSV: ${n} items`);
+  await ctx.progress(0.55, format === "xlsx" ? `Writing the workbook: ${n} items on 5 sheets${p.input.options ? `, ${p.input.options.comparison.options.length} plants on 4 option sheets` : ""}` : `Writing the CSV: ${n} items`);
   const bytes = format === "xlsx" ? await workbookBuffer(p.input) : Buffer.from(scheduleCsv(p.input), "utf8");
   await ctx.progress(0.9, "Recording the export");
   await p.record();

@@ -8,6 +8,8 @@ import type { ScheduleItem } from "@/lib/engine/plant/schedule";
 import type { UnitSystem } from "@/lib/units";
 import { computeFacilityResults, loadFacilityModel } from "@/features/facilities/model";
 import { scheduleChanges } from "./changes";
+import { computeComparison } from "@/features/options/queries";
+import { CODES_NOTICE } from "@/lib/engine/plant/safety";
 import type { RevisionInfo, WorkbookInput } from "./workbook";
 import type { ScheduleDto } from "./schema";
 
@@ -73,6 +75,8 @@ export async function scheduleDto(workspaceId: string, facilityId: string): Prom
 export async function prepareExport(args: { workspaceId: string; facilityId: string; user: { id: string; email: string; name: string; unitSystem: UnitSystem }; kind: "schedule.xlsx" | "schedule.csv" }) {
   const s = await loadSchedule(args.workspaceId, args.facilityId);
   const site = s.m.site;
+  // A facility with plant options gets the comparison on its own sheets beside the schedule's.
+  const oc = s.model.plantOptions.length ? await computeComparison(args.workspaceId, s.model, args.facilityId) : null;
   const input: WorkbookInput = {
     facilityName: s.m.row.name,
     result: s.result,
@@ -84,6 +88,7 @@ export async function prepareExport(args: { workspaceId: string; facilityId: str
     exportedAt: new Date(),
     exportedBy: `${args.user.name} <${args.user.email}>`,
     changes: s.changes,
+    options: oc ? { comparison: oc.comparison, currency: oc.currency, weatherLabel: oc.weather?.label ?? null, codesNotice: CODES_NOTICE } : undefined,
   };
   const record = async () => {
     await db.insert(exportsLog).values({

@@ -12,6 +12,7 @@ import { convert, UNIT_LABELS, type UnitSystem } from "@/lib/units";
 import { numberFormats, scheduleColumns, type Column } from "./columns";
 import type { ScheduleChanges } from "./changes";
 import { csvField, neutralise } from "./safe-text";
+import { addOptionSheets, type OptionSheetsInput } from "./option-sheets";
 
 export const SHEETS = {
   schedule: "Equipment schedule",
@@ -51,6 +52,8 @@ export interface WorkbookInput {
   exportedAt: Date;
   exportedBy: string;
   changes?: ScheduleChanges;
+  /** The plant options comparison; its sheets are added when the facility has options. */
+  options?: OptionSheetsInput;
 }
 
 export function revisionLabel(r: RevisionInfo): string {
@@ -241,6 +244,7 @@ export function buildWorkbook(input: WorkbookInput): ExcelJS.Workbook {
   table(wb.addWorksheet(SHEETS.statePoints), `Circuit state points — ${input.facilityName}`, `${rev} · numbered as on the circuit's pressure–enthalpy chart`, pointColumns(s), points);
 
   buildBasis(wb.addWorksheet(SHEETS.basis), input, rev, when);
+  if (input.options && input.options.comparison.options.length > 1) addOptionSheets(wb, table, input.options, { facilityName: input.facilityName, rev, unitSystem: s });
   return wb;
 }
 

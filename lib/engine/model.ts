@@ -41,6 +41,7 @@ import {
 import { assemblePlant, computePlant, fluidsNeeded, type PlantResult } from "./plant/plant";
 import { designCapacityWithFeedback, NO_FEEDBACK, withFeedback } from "./plant/ledger-feedback";
 import { plantInputSchema, type EvaporatorInput, type PlantInput } from "./plant/schema";
+import { MAX_PLANT_OPTIONS, plantOptionSchema, plantStudySchema, DESIGN_ID } from "./options";
 import { operationSchema } from "./annual/schema";
 
 export { buildSchedule } from "./plant/schedule";
@@ -54,6 +55,10 @@ export const PLANT_ENGINE_VERSION = "plant-1.1.0";
 const plantPart = z.object({
   schemaVersion: z.literal(FACILITY_SCHEMA_VERSION),
   plant: plantInputSchema.prefault({}),
+  /** Alternative plants for the same rooms (see ./options.ts); old documents have none. */
+  plantOptions: z.array(plantOptionSchema).max(MAX_PLANT_OPTIONS, `at most ${MAX_PLANT_OPTIONS} options`).default([]),
+  /** What the options share (years, grid factor) and the design's own name and assessment. */
+  plantStudy: plantStudySchema.prefault({}),
   /**
    * How the facility runs through the year (schedules, part load, tariff) for the annual
    * engine (`lib/engine/annual`); optional, and every default is the design day.
@@ -61,20 +66,34 @@ const plantPart = z.object({
   operation: operationSchema.optional(),
 });
 
+function checkRoomRefs(plant: PlantInput | undefined, rooms: Set<string>, at: (string | number)[], ctx: z.RefinementCtx): void {
+  (plant?.evaporators ?? []).forEach((e, i) => {
+    if (!rooms.has(e.roomId)) ctx.addIssue({ code: "custom", path: [...at, "evaporators", i, "roomId"], message: `no room with id "${e.roomId}"` });
+  });
+  (plant?.installed?.evaporators ?? []).forEach((e, i) => {
+    if (!rooms.has(e.roomId))
+      ctx.addIssue({ code: "custom", path: [...at, "installed", "evaporators", i, "roomId"], message: `no room with id "${e.roomId}"` });
+  });
+}
+
 /**
- * `{ schemaVersion: 1, site, rooms, doors, plant, options? }` — the ledger input and the
- * plant in one document, with the cross-references between them checked (every evaporator
- * in an existing room).
+ * `{ schemaVersion: 1, site, rooms, doors, plant, plantOptions?, plantStudy?, options? }` —
+ * the ledger input and the plant in one document, with the cross-references between them
+ * checked (every evaporator of the design and of every option in an existing room; option
+ * ids and names unique).
  */
 export const facilityModelSchema = z.intersection(ledgerInputSchema, plantPart).superRefine((m, ctx) => {
   const rooms = new Set((m.rooms ?? []).map((r) => r.id));
-  (m.plant?.evaporators ?? []).forEach((e, i) => {
-    if (!rooms.has(e.roomId))
-      ctx.addIssue({ code: "custom", path: ["plant", "evaporators", i, "roomId"], message: `no room with id "${e.roomId}"` });
-  });
-  (m.plant?.installed?.evaporators ?? []).forEach((e, i) => {
-    if (!rooms.has(e.roomId))
-      ctx.addIssue({ code: "custom", path: ["plant", "installed", "evaporators", i, "roomId"], message: `no room with id "${e.roomId}"` });
+  checkRoomRefs(m.plant, rooms, ["plant"], ctx);
+  const ids = new Set<string>([DESIGN_ID]);
+  const names = new Set<string>([(m.plantStudy?.designName ?? "Design").toLowerCase()]);
+  (m.plantOptions ?? []).forEach((o, i) => {
+    if (ids.has(o.id)) ctx.addIssue({ code: "custom", path: ["plantOptions", i, "id"], message: `duplicate option id "${o.id}"` });
+    ids.add(o.id);
+    if (names.has(o.name.toLowerCase()))
+      ctx.addIssue({ code: "custom", path: ["plantOptions", i, "name"], message: `"${o.name}" is already the name of a plant of this facility` });
+    names.add(o.name.toLowerCase());
+    checkRoomRefs(o.plant, rooms, ["plantOptions", i, "plant"], ctx);
   });
 });
 
@@ -117,11 +136,18 @@ export function facilityFluidsNeeded(model: Pick<FacilityModel, "plant">): Fluid
 
 /** The ledger's own part of the document: everything but the version and the plant. */
 function ledgerPart(m: FacilityModel): LedgerInput {
-  const { schemaVersion, plant, operation, ...ledger } = m;
+  const { schemaVersion, plant, plantOptions, plantStudy, operation, ...ledger } = m;
   void schemaVersion;
   void plant;
+  void plantOptions;
+  void plantStudy;
   void operation;
   return ledger;
+}
+
+/** The same facility with another plant in the design's place (an option, for comparison). */
+export function withPlant(model: FacilityModel, plant: PlantInput): FacilityModel {
+  return { ...model, plant };
 }
 
 interface RoomSolution {
@@ -308,7 +334,9 @@ export function createFacilityEngine(opts: ComputeOptions = {}): FacilityEngine 
     compute(model) {
       stats.roomsComputed = 0;
       stats.circuitsComputed = 0;
-      const { schemaVersion, plant: plantInput, rooms: roomsInput, doors: doorsInput, ...shared } = model;
+      const { schemaVersion, plant: plantInput, rooms: roomsInput, doors: doorsInput, plantOptions, plantStudy, ...shared } = model;
+      void plantOptions;
+      void plantStudy;
       void schemaVersion;
       void plantInput;
       void roomsInput;

@@ -96,6 +96,12 @@ const COVERED: Record<string, Row> = {
   [`POST ${F}/scenarios/[sid]/email`]: roles("AAADD"),
   [`GET ${F}/schedule`]: roles("AAAAA"),
   [`POST ${F}/exports`]: roles("AADAD"),
+  [`GET ${F}/options`]: roles("AAAAA"),
+  [`POST ${F}/options`]: roles("AADDD"),
+  [`PATCH ${F}/options`]: roles("AADDD"),
+  [`PATCH ${F}/options/[oid]`]: roles("AADDD"),
+  [`DELETE ${F}/options/[oid]`]: roles("AADDD"),
+  [`POST ${F}/options/[oid]/design`]: roles("AADDD"),
   [`GET ${F}/weather`]: roles("AAAAA"),
   [`POST ${F}/weather`]: roles("AADDD"),
   [`PUT ${F}/weather`]: roles("AADDD"),
@@ -217,6 +223,16 @@ function ownerExport(): Promise<{ id: string }> {
 }
 
 const f = (id = facilityId) => `${base}/facilities/${id}`;
+
+/** A plant option of the scratch facility made by the owner (older ones pruned so the facility stays under its limit of 8). */
+async function ownerOption(tag: string): Promise<string> {
+  const list = await (await ctx.owner.get(`${s()}/options`)).json();
+  const options = (list.comparison.options as { id: string; isDesign: boolean }[]).filter((o) => !o.isDesign);
+  for (const o of options.slice(0, Math.max(0, options.length - 4))) expect((await ctx.owner.delete(`${s()}/options/${o.id}`)).status()).toBe(200);
+  const r = await ctx.owner.post(`${s()}/options`, { data: { name: `Matrix ${tag} ${Date.now()}` } });
+  expect(r.status(), await r.text()).toBe(201);
+  return (await r.json()).option.id as string;
+}
 const s = () => f(scratchId);
 const st = (r: { status(): number }) => r.status();
 
@@ -309,6 +325,15 @@ const SEND: Record<keyof typeof COVERED, Send> = {
   [`POST ${F}/scenarios/[sid]/email`]: async (c, who) => st(await c.post(`${s()}/scenarios/${scenarioId}/email`, { data: { to: [`matrix-reader-${who}@example.test`] } })),
   [`GET ${F}/schedule`]: async (c) => st(await c.get(`${f()}/schedule`)),
   [`POST ${F}/exports`]: async (c) => st(await c.post(`${f()}/exports`, { data: { format: "csv" } })),
+  [`GET ${F}/options`]: async (c) => st(await c.get(`${f()}/options`)),
+  [`POST ${F}/options`]: async (c, who) => {
+    await ownerOption(`pre-${who}`); // prunes, so the allowed create always has room
+    return st(await c.post(`${s()}/options`, { data: { name: `Matrix option ${who} ${Date.now()}` } }));
+  },
+  [`PATCH ${F}/options`]: async (c) => st(await c.patch(`${s()}/options`, { data: { years: 15, gridKgCo2PerKWh: 0.25 } })),
+  [`PATCH ${F}/options/[oid]`]: async (c, who) => st(await c.patch(`${s()}/options/${await ownerOption(who)}`, { data: { name: `Renamed ${who} ${Date.now()}`, leakPctPerYear: 4 } })),
+  [`DELETE ${F}/options/[oid]`]: async (c, who) => st(await c.delete(`${s()}/options/${await ownerOption(who)}`)),
+  [`POST ${F}/options/[oid]/design`]: async (c, who) => st(await c.post(`${s()}/options/${await ownerOption(who)}/design`)),
   [`GET ${F}/weather`]: async (c) => st(await c.get(`${f()}/weather`)),
   [`POST ${F}/weather`]: async (c) => st(await c.post(`${s()}/weather`, { multipart: { file: { name: "year.csv", mimeType: "text/csv", buffer: Buffer.from(WEATHER_CSV) } } })),
   [`PUT ${F}/weather`]: async (c) => st(await c.put(`${s()}/weather`, { data: MONTHLY })),

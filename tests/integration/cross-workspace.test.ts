@@ -57,6 +57,9 @@ import * as jobRoute from "@/app/api/v1/workspaces/[ws]/jobs/[id]/route";
 import * as memberRoute from "@/app/api/v1/workspaces/[ws]/members/[userId]/route";
 import * as membersRoute from "@/app/api/v1/workspaces/[ws]/members/route";
 import * as auditRoute from "@/app/api/v1/workspaces/[ws]/audit/route";
+import * as optionsRoute from "@/app/api/v1/workspaces/[ws]/facilities/[id]/options/route";
+import * as optionRoute from "@/app/api/v1/workspaces/[ws]/facilities/[id]/options/[oid]/route";
+import * as optionDesignRoute from "@/app/api/v1/workspaces/[ws]/facilities/[id]/options/[oid]/design/route";
 import * as settingsRoute from "@/app/api/v1/workspaces/[ws]/settings/route";
 import * as weatherRoute from "@/app/api/v1/workspaces/[ws]/facilities/[id]/weather/route";
 import * as energyRoute from "@/app/api/v1/workspaces/[ws]/facilities/[id]/energy/route";
@@ -77,6 +80,8 @@ interface Side {
   owner: CurrentUser;
   facility: string;
   scenario: string;
+  /** A plant option of the facility (its id lives in the model document). */
+  option: string;
   job: string;
   invite: string;
   member: string;
@@ -94,7 +99,16 @@ async function makeSide(tag: string): Promise<Side> {
   await addMember(ws.id, member.id, "designer");
   const name = `Secret facility ${tag} ${ws.slug}`;
   const f = await createFacility(ws.id, owner.id, { name, site: SITE });
-  await saveFacilityModel({ workspaceId: ws.id, facilityId: f.id, userId: owner.id, baseVersion: 1, doc: { ...demo, plant: { ...(demo.plant ?? {}), installed } } as ModelDoc, summary: "demo" });
+  const option = `opt-${tag.toLowerCase()}`;
+  const plant = { ...(demo.plant ?? {}), installed };
+  await saveFacilityModel({
+    workspaceId: ws.id,
+    facilityId: f.id,
+    userId: owner.id,
+    baseVersion: 1,
+    doc: { ...demo, plant, plantOptions: [{ id: option, name: `Secret option ${tag}`, plant }] } as ModelDoc,
+    summary: "demo",
+  });
   await putLayout(f.id, { positions: { "room:apples": { x: 10, y: 20 } }, viewport: { x: 0, y: 0, zoom: 1 } });
   await putBackground(f.id, PNG);
   const s = await createScenario(ws.id, f.id, owner.id, { name: `Secret check ${tag}`, changes: scenarioChangesSchema.parse({ rooms: [{ roomId: "apples", tonnesPerDay: 10 }] }) });
@@ -110,10 +124,11 @@ async function makeSide(tag: string): Promise<Side> {
     owner: { id: owner.id, email: owner.email, name: owner.name, unitSystem: "SI", theme: "system", sessionId: `cross-${tag}` },
     facility: f.id,
     scenario: s.id,
+    option,
     job: job.id,
     invite: invite.id,
     member: member.id,
-    secrets: [name, `Secret weather ${tag}`, `Secret check ${tag}`, `secret-${tag}.csv`, `secret file ${tag}`, member.email, `invitee-${tag.toLowerCase()}`],
+    secrets: [name, `Secret weather ${tag}`, `Secret check ${tag}`, `Secret option ${tag}`, `secret-${tag}.csv`, `secret file ${tag}`, member.email, `invitee-${tag.toLowerCase()}`],
   };
 }
 
@@ -155,6 +170,7 @@ interface Case {
 const fac = (slug: string, s: Side) => ({ ws: slug, id: s.facility });
 const sce = (slug: string, s: Side) => ({ ws: slug, id: s.facility, sid: s.scenario });
 const rev = (slug: string, s: Side) => ({ ws: slug, id: s.facility, n: "2" });
+const opt = (slug: string, s: Side) => ({ ws: slug, id: s.facility, oid: s.option });
 const csvForm = (text: string, mode: "preview" | "commit") => () => {
   const f = new FormData();
   f.set("file", new File([text], "plan.csv", { type: "text/csv" }));
@@ -212,6 +228,12 @@ const CASES: Case[] = [
   { name: "invite DELETE", mod: inviteRoute, method: "DELETE", params: (slug, s) => ({ ws: slug, inviteId: s.invite }) },
   { name: "member PATCH", mod: memberRoute, method: "PATCH", params: (slug, s) => ({ ws: slug, userId: s.member }), body: () => ({ json: { role: "viewer" } }) },
   { name: "member DELETE", mod: memberRoute, method: "DELETE", params: (slug, s) => ({ ws: slug, userId: s.member }) },
+  { name: "options GET", mod: optionsRoute, method: "GET", params: fac },
+  { name: "options POST", mod: optionsRoute, method: "POST", params: fac, body: () => ({ json: { name: "Stranger's option" } }) },
+  { name: "options PATCH", mod: optionsRoute, method: "PATCH", params: fac, body: () => ({ json: { years: 20 } }) },
+  { name: "option PATCH", mod: optionRoute, method: "PATCH", params: opt, body: () => ({ json: { name: "Renamed by a stranger", leakPctPerYear: 50 } }) },
+  { name: "option make design", mod: optionDesignRoute, method: "POST", params: opt },
+  { name: "option DELETE", mod: optionRoute, method: "DELETE", params: opt },
 ];
 
 /** Routes of a workspace without an id: only the slug names the workspace. */
@@ -274,6 +296,11 @@ describe("a member of one workspace cannot reach another workspace's resources b
       // A's own facility, B's stocking check: the check is not found in A's facility either.
       const mixed = await send(c, { ws: A.slug, id: A.facility, sid: B.scenario }, B);
       expectNotFound(`${c.name} with A's facility and B's check`, mixed);
+    }
+    for (const c of CASES.filter((x) => x.params === opt)) {
+      // A's own facility, B's option id: the option is not found in A's facility either.
+      const mixed = await send(c, { ws: A.slug, id: A.facility, oid: B.option }, B);
+      expectNotFound(`${c.name} with A's facility and B's option`, mixed);
     }
     for (const c of WS_CASES) expectNotFound(`${c.name} under B's slug`, await send(c, c.params(B.slug, B), B));
     expect(await fingerprint()).toEqual(before);

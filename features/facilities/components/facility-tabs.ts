@@ -9,6 +9,7 @@ export const FACILITY_TABS: { slug: string; label: string }[] = [
   { slug: "stocking", label: "Stocking checks" },
   { slug: "schedule", label: "Equipment schedule" },
   { slug: "energy", label: "Energy" },
+  { slug: "options", label: "Plant options" },
   { slug: "settings", label: "Site & settings" },
   { slug: "revisions", label: "Revisions" },
 ];

@@ -3,6 +3,7 @@ import { fmt, UNIT_LABELS, convert, type UnitSystem } from "@/lib/units";
 import { SAFETY_GROUP } from "@/lib/engine/plant/safety";
 import { methodsAndSources, revisionLabel, scheduleKindWord } from "@/features/schedule";
 import type { ReportData } from "../queries";
+import { OptionsReportTable } from "@/features/options/components/options-report";
 
 const th = "border-b border-line py-1 pr-3 text-left text-xs font-medium text-muted";
 const td = "border-b border-line py-1 pr-3 align-top";
@@ -289,6 +290,12 @@ export function CalculationReport({ d, unitSystem: s, generatedAt, generatedBy }
           </>
         ) : null}
       </Section>
+
+      {d.options ? (
+        <Section id="options-h" title="7. Plant options compared">
+          <OptionsReportTable c={d.options.comparison} unitSystem={s} currency={d.options.currency} weatherLabel={d.options.weather?.label ?? null} codesNotice={r.plant.codesNotice} />
+        </Section>
+      ) : null}
     </article>
   );
 }
