@@ -102,6 +102,10 @@ function perWatt(
     coldReservoirs: [{ heatW: 1, tK: suctionC + K0 + 1 }],
     sinkK: condensingC + K0 - 1,
     intermediateK: arrangement === "two-stage" && c.intermediateC !== undefined ? c.intermediateC + K0 : undefined,
+    // CO2: the high-pressure control's set point and the switch-over to condensing, as the
+    // design calculation uses them (circuit.ts), so re-rating sees the same cycle.
+    highSidePa: typeof c.highSidePa === "number" ? c.highSidePa : undefined,
+    switchOverK: c.switchOverC === undefined ? undefined : c.switchOverC + K0,
   };
   const r = arrangement === "two-stage" ? twoStageCycle(spec) : arrangement === "transcritical" ? transcriticalCycle(spec) : singleStageCycle(spec);
   if (arrangement === "two-stage") {

@@ -79,6 +79,10 @@ export const PRACTICAL_LIMITS: Record<FluidId, PracticalLimit> = {
   R290: { kgPerM3: 0.008, source: PL_SOURCE },
   R1234zeE: { kgPerM3: 0.061, source: PL_SOURCE },
   R513A: { kgPerM3: 0.35, source: PL_SOURCE },
+  // A2L blends: 0.2 × the lower flammability limit (EN 378-1 Annex C rule for flammable
+  // refrigerants); LFL values from memory of ISO 817 / ASHRAE 34 (R454C 0.291, R455A 0.431 kg/m³).
+  R454C: { kgPerM3: 0.058, source: `${PL_SOURCE}; 0.2 × LFL 0.291 kg/m³ (LFL from memory of ISO 817)` },
+  R455A: { kgPerM3: 0.086, source: `${PL_SOURCE}; 0.2 × LFL 0.431 kg/m³ (LFL from memory of ISO 817)` },
 };
 
 export interface RoomForAid {
