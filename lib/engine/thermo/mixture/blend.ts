@@ -533,6 +533,7 @@ function extrapolate(a: TwoPhaseSolution, b: TwoPhaseSolution): TwoPhaseSolution
     y,
     liquid: { ...a.liquid, rhoMolM3: rho(a.liquid.rhoMolM3, b.liquid.rhoMolM3) },
     vapour: { ...a.vapour, rhoMolM3: rho(a.vapour.rhoMolM3, b.vapour.rhoMolM3) },
+    jacobian: a.jacobian,
   };
 }
 
