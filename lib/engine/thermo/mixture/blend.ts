@@ -113,12 +113,13 @@ export class HelmholtzBlend implements Fluid {
     let prev: TwoPhaseSolution[] = [];
     let prev2: TwoPhaseSolution[] = [];
     let prev3: TwoPhaseSolution[] = [];
+    let prev4: TwoPhaseSolution[] = [];
     for (let i = 0; i < N_P; i++) {
       const p = Math.exp(u0 + i * du);
       const sols: TwoPhaseSolution[] = [];
       for (let j = 0; j < N_BETA; j++) {
-        // extrapolated from the previous pressures (ln K, T, densities; quadratic once three exist)
-        const guess = prev[j] && prev2[j] ? extrapolate(prev[j], prev2[j], prev3[j]) : (prev[j] ?? sols[j - 1]);
+        // extrapolated from the previous pressures (ln K, T, densities; cubic once four exist)
+        const guess = prev[j] && prev2[j] ? extrapolate(prev[j], prev2[j], prev3[j], prev4[j]) : (prev[j] ?? sols[j - 1]);
         const sol = solveFixedBeta(this.mix, this.z, "P", p, BETA_NODES[j], guess);
         sols.push(sol);
         const m = twoPhaseMass(sol);
@@ -134,6 +135,7 @@ export class HelmholtzBlend implements Fluid {
       series[S_CPV][i] = vap.cpJkgK;
       series[S_WV][i] = vap.speedOfSoundMs;
       series[S_WL][i] = liq.speedOfSoundMs;
+      prev4 = prev3;
       prev3 = prev2;
       prev2 = prev;
       prev = sols;
@@ -517,30 +519,32 @@ export class HelmholtzBlend implements Fluid {
 }
 
 /** A starting guess two grid steps on: 2·a − b in T, ln K and the densities. */
-function extrapolate(a: TwoPhaseSolution, b: TwoPhaseSolution, c?: TwoPhaseSolution): TwoPhaseSolution {
+function extrapolate(a: TwoPhaseSolution, b: TwoPhaseSolution, c?: TwoPhaseSolution, d?: TwoPhaseSolution): TwoPhaseSolution {
   const n = a.x.length;
   const x = new Float64Array(n);
   const y = new Float64Array(n);
-  // linear from two previous rows (2a − b), quadratic from three (3a − 3b + c): the grid is uniform in ln P
-  const ex = (va: number, vb: number, vc: number | undefined) => (vc === undefined ? 2 * va - vb : 3 * va - 3 * vb + vc);
+  // the grid is uniform in ln P: linear from two previous rows (2a − b), quadratic from three
+  // (3a − 3b + c), cubic from four (4a − 6b + 4c − d)
+  const ex = (va: number, vb: number, vc: number | undefined, vd: number | undefined) =>
+    vc === undefined ? 2 * va - vb : vd === undefined ? 3 * va - 3 * vb + vc : 4 * va - 6 * vb + 4 * vc - vd;
+  const lnK = (s: TwoPhaseSolution | undefined, i: number) => (s ? Math.log(s.y[i] / s.x[i]) : undefined);
   for (let i = 0; i < n; i++) {
     x[i] = a.x[i];
     // K = y/x extrapolated in ln K
-    const lnK = ex(Math.log(a.y[i] / a.x[i]), Math.log(b.y[i] / b.x[i]), c && Math.log(c.y[i] / c.x[i]));
-    y[i] = a.x[i] * Math.exp(lnK);
+    y[i] = a.x[i] * Math.exp(ex(lnK(a, i)!, lnK(b, i)!, lnK(c, i), lnK(d, i)));
   }
-  const rho = (ra: number, rb: number, rc: number | undefined) => {
-    const r = ex(ra, rb, rc);
+  const rho = (ra: number, rb: number, rc: number | undefined, rd: number | undefined) => {
+    const r = ex(ra, rb, rc, rd);
     return r > 0 ? r : ra;
   };
   return {
-    tK: ex(a.tK, b.tK, c?.tK),
+    tK: ex(a.tK, b.tK, c?.tK, d?.tK),
     pPa: a.pPa,
     beta: a.beta,
     x,
     y,
-    liquid: { ...a.liquid, rhoMolM3: rho(a.liquid.rhoMolM3, b.liquid.rhoMolM3, c?.liquid.rhoMolM3) },
-    vapour: { ...a.vapour, rhoMolM3: rho(a.vapour.rhoMolM3, b.vapour.rhoMolM3, c?.vapour.rhoMolM3) },
+    liquid: { ...a.liquid, rhoMolM3: rho(a.liquid.rhoMolM3, b.liquid.rhoMolM3, c?.liquid.rhoMolM3, d?.liquid.rhoMolM3) },
+    vapour: { ...a.vapour, rhoMolM3: rho(a.vapour.rhoMolM3, b.vapour.rhoMolM3, c?.vapour.rhoMolM3, d?.vapour.rhoMolM3) },
     jacobian: a.jacobian,
   };
 }
