@@ -93,8 +93,10 @@ function wilsonStart(mix: MixtureModel, z: ArrayLike<number>, spec: "T" | "P", v
  * The solve is Newton's method on u = (ln K_1 … ln K_n, ln T or ln P) for the equations
  * ln K_i + ln φ_i^V(y) − ln φ_i^L(x) = 0 (equal fugacities) and the Rachford–Rice balance
  * Σ z_i (K_i − 1)/(1 + β(K_i − 1)) = 0, with x_i = z_i/(1 + β(K_i − 1)), y_i = K_i x_i. The
- * Jacobian is taken by forward differences of the analytic ln φ (n + 1 extra phase pairs per
- * step); from a neighbouring solution it converges in three to five steps.
+ * Jacobian is taken by forward differences of the analytic ln φ (n + 1 extra phase pairs) only
+ * when the guess carries none or the residual stops falling fast; otherwise the guess's
+ * Jacobian, kept current by Broyden updates, is used. From a neighbouring solution it
+ * converges in three or four residual evaluations.
  */
 export function solveFixedBeta(
   mix: MixtureModel,
