@@ -19,9 +19,12 @@
  *   E. W. (2016), "Automatic Fitting of Binary Interaction Parameters for Multi-fluid
  *   Helmholtz-Energy-Explicit Mixture Models", J. Chem. Eng. Data 61, 3752–3760 (β_T, γ_T only,
  *   β_v = γ_v = 1, no departure function).
- * - R1234ze(E) with R125, R134a and R1234yf: the file version read has no parameters for these
- *   three pairs; they run on the Lorentz–Berthelot default (all four parameters 1, F = 0), the
- *   model's own fallback. R1234ze(E) is 7 % of R448A and in no other blend here.
+ * - R1234ze(E) with R125, R134a and R1234yf: no usable parameters (R1234yf/R1234ze(E) and
+ *   R134a/R1234ze(E) are in a later pairs file, Bell et al. 2022, but fitted with departure
+ *   functions no readable version of the departure file has; R125/R1234ze(E) was found
+ *   nowhere); they run on the Lorentz–Berthelot default (all four parameters 1, F = 0), the
+ *   model's own fallback. R1234ze(E) is 7 % of R448A and in no other blend here; the thermo
+ *   README gives what the gap can cost.
  *
  * A later version of the same pairs file replaces the HFO pairs by the fits of Bell et al.
  * (J. Phys. Chem. Ref. Data 2022 and 2023: R32/R1234yf, R32/R1234ze(E), R125/R1234yf,

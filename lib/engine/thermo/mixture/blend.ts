@@ -112,12 +112,14 @@ export class HelmholtzBlend implements Fluid {
     const series = Array.from({ length: S_WL + 1 }, () => new Float64Array(N_P));
     let prev: TwoPhaseSolution[] = [];
     let prev2: TwoPhaseSolution[] = [];
+    let prev3: TwoPhaseSolution[] = [];
+    let prev4: TwoPhaseSolution[] = [];
     for (let i = 0; i < N_P; i++) {
       const p = Math.exp(u0 + i * du);
       const sols: TwoPhaseSolution[] = [];
       for (let j = 0; j < N_BETA; j++) {
-        // linear extrapolation from the two previous pressures (ln K, T, densities)
-        const guess = prev[j] && prev2[j] ? extrapolate(prev[j], prev2[j]) : (prev[j] ?? sols[j - 1]);
+        // extrapolated from the previous pressures (ln K, T, densities; cubic once four exist)
+        const guess = prev[j] && prev2[j] ? extrapolate(prev[j], prev2[j], prev3[j], prev4[j]) : (prev[j] ?? sols[j - 1]);
         const sol = solveFixedBeta(this.mix, this.z, "P", p, BETA_NODES[j], guess);
         sols.push(sol);
         const m = twoPhaseMass(sol);
@@ -133,6 +135,8 @@ export class HelmholtzBlend implements Fluid {
       series[S_CPV][i] = vap.cpJkgK;
       series[S_WV][i] = vap.speedOfSoundMs;
       series[S_WL][i] = liq.speedOfSoundMs;
+      prev4 = prev3;
+      prev3 = prev2;
       prev2 = prev;
       prev = sols;
     }
@@ -515,24 +519,33 @@ export class HelmholtzBlend implements Fluid {
 }
 
 /** A starting guess two grid steps on: 2·a − b in T, ln K and the densities. */
-function extrapolate(a: TwoPhaseSolution, b: TwoPhaseSolution): TwoPhaseSolution {
+function extrapolate(a: TwoPhaseSolution, b: TwoPhaseSolution, c?: TwoPhaseSolution, d?: TwoPhaseSolution): TwoPhaseSolution {
   const n = a.x.length;
   const x = new Float64Array(n);
   const y = new Float64Array(n);
+  // the grid is uniform in ln P: linear from two previous rows (2a − b), quadratic from three
+  // (3a − 3b + c), cubic from four (4a − 6b + 4c − d)
+  const ex = (va: number, vb: number, vc: number | undefined, vd: number | undefined) =>
+    vc === undefined ? 2 * va - vb : vd === undefined ? 3 * va - 3 * vb + vc : 4 * va - 6 * vb + 4 * vc - vd;
+  const lnK = (s: TwoPhaseSolution | undefined, i: number) => (s ? Math.log(s.y[i] / s.x[i]) : undefined);
   for (let i = 0; i < n; i++) {
     x[i] = a.x[i];
     // K = y/x extrapolated in ln K
-    y[i] = a.x[i] * Math.exp(2 * Math.log(a.y[i] / a.x[i]) - Math.log(b.y[i] / b.x[i]));
+    y[i] = a.x[i] * Math.exp(ex(lnK(a, i)!, lnK(b, i)!, lnK(c, i), lnK(d, i)));
   }
-  const rho = (ra: number, rb: number) => (2 * ra - rb > 0 ? 2 * ra - rb : ra);
+  const rho = (ra: number, rb: number, rc: number | undefined, rd: number | undefined) => {
+    const r = ex(ra, rb, rc, rd);
+    return r > 0 ? r : ra;
+  };
   return {
-    tK: 2 * a.tK - b.tK,
+    tK: ex(a.tK, b.tK, c?.tK, d?.tK),
     pPa: a.pPa,
     beta: a.beta,
     x,
     y,
-    liquid: { ...a.liquid, rhoMolM3: rho(a.liquid.rhoMolM3, b.liquid.rhoMolM3) },
-    vapour: { ...a.vapour, rhoMolM3: rho(a.vapour.rhoMolM3, b.vapour.rhoMolM3) },
+    liquid: { ...a.liquid, rhoMolM3: rho(a.liquid.rhoMolM3, b.liquid.rhoMolM3, c?.liquid.rhoMolM3, d?.liquid.rhoMolM3) },
+    vapour: { ...a.vapour, rhoMolM3: rho(a.vapour.rhoMolM3, b.vapour.rhoMolM3, c?.vapour.rhoMolM3, d?.vapour.rhoMolM3) },
+    jacobian: a.jacobian,
   };
 }
 

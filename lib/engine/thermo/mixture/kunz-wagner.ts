@@ -349,7 +349,9 @@ export class MixtureModel {
         if (step > 0.5 * rho) step = 0.5 * rho;
         if (step < -0.5 * rho) step = -0.5 * rho;
         rho -= step;
-        if (Math.abs(step) < 1e-13 * rho) return rho;
+        // Newton converges quadratically here: after a step below 1e-9·ρ the iterate's error is
+        // of order (1e-9)²·ρ, so no further evaluation is needed to confirm it
+        if (Math.abs(step) < 1e-9 * rho) return rho;
       }
       return NaN;
     };

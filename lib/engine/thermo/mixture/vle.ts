@@ -20,6 +20,12 @@ export interface TwoPhaseSolution {
   y: Float64Array;
   liquid: PhaseEval;
   vapour: PhaseEval;
+  /**
+   * The last Newton Jacobian of the solve (row-major, (n + 1)², in u = ln K, ln T or ln P): a
+   * neighbouring solve that takes this solution as its guess starts from it instead of
+   * differencing a new one.
+   */
+  jacobian?: Float64Array;
 }
 
 /** A VLE iteration that did not converge: an internal failure, not a range error. */
@@ -87,8 +93,10 @@ function wilsonStart(mix: MixtureModel, z: ArrayLike<number>, spec: "T" | "P", v
  * The solve is Newton's method on u = (ln K_1 … ln K_n, ln T or ln P) for the equations
  * ln K_i + ln φ_i^V(y) − ln φ_i^L(x) = 0 (equal fugacities) and the Rachford–Rice balance
  * Σ z_i (K_i − 1)/(1 + β(K_i − 1)) = 0, with x_i = z_i/(1 + β(K_i − 1)), y_i = K_i x_i. The
- * Jacobian is taken by forward differences of the analytic ln φ (n + 1 extra phase pairs per
- * step); from a neighbouring solution it converges in three to five steps.
+ * Jacobian is taken by forward differences of the analytic ln φ (n + 1 extra phase pairs) only
+ * when the guess carries none or the residual stops falling fast; otherwise the guess's
+ * Jacobian, kept current by Broyden updates, is used. From a neighbouring solution it
+ * converges in three or four residual evaluations.
  */
 export function solveFixedBeta(
   mix: MixtureModel,
@@ -172,16 +180,45 @@ export function solveFixedBeta(
     for (let i = 0; i < n; i++) out[i] = v[i] + mix.lnPhi[i] - lnPhiL[i];
   };
   const h = 1e-7;
-  // The Jacobian is refreshed only when the residual stops falling fast (a chord method between
-  // refreshes): from a neighbouring solution one Jacobian usually carries it to convergence.
+  // The Jacobian is differenced afresh only when the residual stops falling fast; between
+  // refreshes Broyden updates keep it (a neighbouring solve's Jacobian starts it when given):
+  // from a neighbouring solution no new differencing is usually needed.
   const LU = new Float64Array(m * m);
   let fPrev = Infinity;
   let fresh = false;
+  const step = new Float64Array(m);
+  const FOld = new Float64Array(m);
+  let haveStep = false;
+  if (guess?.jacobian && guess.jacobian.length === m * m) {
+    // a neighbouring solve's Jacobian: kept while the residual falls fast, else refreshed
+    J.set(guess.jacobian);
+    fresh = true;
+  }
   for (let it = 0; it < 60; it++) {
     residual(u, F);
     let fMax = 0;
     for (let i = 0; i < m; i++) fMax = Math.max(fMax, Math.abs(F[i]));
     if (!Number.isFinite(fMax)) break;
+    // converged: every ln-fugacity difference within 1e-10 and the material balance (Rachford–Rice
+    // sum) within 1e-14; the phases were just evaluated at this point with all their properties
+    if (fMax < 1e-10 && Math.abs(F[n]) < 1e-14) {
+      if (Math.abs(liquid.z - vapour.z) < 1e-5) break;
+      return { tK, pPa, beta, x, y, liquid, vapour, jacobian: J };
+    }
+    if (fresh && haveStep && fMax <= 0.2 * fPrev) {
+      // Broyden's rank-one update of the kept Jacobian with the last step s and the change of
+      // the residual y: J += (y − J·s)·sᵀ/(sᵀs) (Broyden, Math. Comp. 19, 1965)
+      let ss = 0;
+      for (let k = 0; k < m; k++) ss += step[k] * step[k];
+      if (ss > 0) {
+        for (let i = 0; i < m; i++) {
+          let js = 0;
+          for (let k = 0; k < m; k++) js += J[i * m + k] * step[k];
+          const r = (F[i] - FOld[i] - js) / ss;
+          for (let k = 0; k < m; k++) J[i * m + k] += r * step[k];
+        }
+      }
+    }
     if (!fresh || fMax > 0.2 * fPrev) {
       for (let k = 0; k < m; k++) {
         const save = u[k];
@@ -201,7 +238,10 @@ export function solveFixedBeta(
     for (let i = 0; i < n; i++) scale = Math.min(scale, 0.5 / Math.max(Math.abs(du[i]), 1e-300));
     scale = Math.min(scale, 0.1 / Math.max(Math.abs(du[n]), 1e-300));
     let stepMax = 0;
+    FOld.set(F);
+    haveStep = true;
     for (let i = 0; i < m; i++) {
+      step[i] = scale * du[i];
       u[i] += scale * du[i];
       stepMax = Math.max(stepMax, Math.abs(scale * du[i]));
     }
@@ -209,7 +249,7 @@ export function solveFixedBeta(
       // the last evaluation (both phases, all properties) at the converged point
       residual(u, F);
       if (Math.abs(liquid.z - vapour.z) < 1e-5) break;
-      return { tK, pPa, beta, x, y, liquid, vapour };
+      return { tK, pPa, beta, x, y, liquid, vapour, jacobian: J };
     }
   }
   throw new VleConvergenceError(`VLE at ${spec} = ${value}, beta = ${beta} did not converge`);
