@@ -334,7 +334,7 @@ function Results({
       <section aria-labelledby="cond-h">
         <div className="mb-2 flex items-center gap-2">
           <h3 id="cond-h" className="text-sm font-semibold text-muted">
-            Hours at each condensing temperature ({tLabel}, 1 K bins)
+            Hours at each condensing temperature ({tLabel}, 1 K bins; circuit-hours: each circuit adds its own hours)
           </h3>
           <ChartOrTable label="Condensing hours" view={condView} setView={setCondView} />
         </div>
