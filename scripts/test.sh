@@ -25,7 +25,8 @@ ensure_node_modules
 if [ -z "${RIMEPLAN_PG_DIR:-}" ]; then export RIMEPLAN_PG_DIR="$(pg_dir)-test"; fi
 pg_start
 rm -rf "$MAIL_CATCHER_DIR"; smtp_stop; smtp_start
-trap 'smtp_stop' EXIT
+# The test cluster stops with the run, so another checkout can use the same port afterwards.
+trap 'smtp_stop; pg_stop' EXIT
 set +e
 
 RUN_ID="$(date +%s)_$$"
