@@ -67,7 +67,9 @@ test.describe("designer", () => {
     await shot(page, "energy-designer");
     expect(await axe(page)).toEqual([]);
 
-    // a tariff out of range is named and nothing saved; a valid one prices the year
+    // a tariff out of range is named and nothing saved; a valid one prices the year (the demo
+    // model carries a day/night tariff: switch it to a flat rate)
+    await page.getByLabel("Kind", { exact: true }).selectOption("flat");
     await page.getByLabel("Price", { exact: true }).fill("250");
     await page.getByRole("button", { name: "Save tariff and operation" }).click();
     await expect(page.getByText("Price must be between 0 and 100 EUR/kWh").first()).toBeVisible();
