@@ -7,8 +7,17 @@ export function Field({
   error,
   hint,
   id,
+  inputClassName = "w-full py-1.5",
   ...input
-}: InputHTMLAttributes<HTMLInputElement> & { label: string; unit?: ReactNode; error?: string; hint?: string; id: string }) {
+}: InputHTMLAttributes<HTMLInputElement> & {
+  label: string;
+  unit?: ReactNode;
+  error?: string;
+  hint?: string;
+  id: string;
+  /** Width and padding of the input (default full width); compact tables pass e.g. "w-24 py-1 text-right". */
+  inputClassName?: string;
+}) {
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={id} className="text-xs font-medium text-muted">
@@ -19,7 +28,7 @@ export function Field({
           id={id}
           aria-invalid={error ? true : undefined}
           aria-describedby={error ? `${id}-error` : hint ? `${id}-hint` : undefined}
-          className={`w-full rounded border bg-surface px-2 py-1.5 text-sm text-ink outline-none focus:border-accent ${error ? "border-danger" : "border-line"}`}
+          className={`${inputClassName} rounded border bg-surface px-2 text-sm text-ink outline-none focus:border-accent ${error ? "border-danger" : "border-line"}`}
           {...input}
         />
         {unit ? <span className="min-w-10 text-xs text-muted">{unit}</span> : null}

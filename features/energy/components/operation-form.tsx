@@ -2,6 +2,7 @@
 import { useState } from "react";
 import { useRouter } from "next/navigation";
 import { Button } from "@/components/ui/button";
+import { Field } from "@/components/form/field";
 import { api, ApiError } from "@/lib/api-client";
 import { convert, fmt, UNIT_LABELS, type UnitSystem } from "@/lib/units";
 import { patternFromWeek, weekFromPattern, DAYS, type Week } from "../week-pattern";
@@ -38,30 +39,7 @@ function patternState(w: Week | undefined): { p: Pattern; custom: boolean } {
 const num = (x: string) => (x.trim() === "" ? Number.NaN : Number(x.replace(",", ".")));
 
 function NumberInput({ id, label, value, onChange, error, unit, width = "w-24" }: { id: string; label: string; value: string; onChange: (v: string) => void; error?: string; unit?: string; width?: string }) {
-  return (
-    <div className="flex flex-col gap-0.5">
-      <label htmlFor={id} className="text-xs text-muted">
-        {label}
-      </label>
-      <div className="flex items-center gap-1">
-        <input
-          id={id}
-          inputMode="decimal"
-          value={value}
-          onChange={(e) => onChange(e.target.value)}
-          aria-invalid={error ? true : undefined}
-          aria-describedby={error ? `${id}-error` : undefined}
-          className={`${width} rounded border bg-surface px-2 py-1 text-right text-sm ${error ? "border-danger" : "border-line"}`}
-        />
-        {unit ? <span className="text-xs text-muted">{unit}</span> : null}
-      </div>
-      {error ? (
-        <p id={`${id}-error`} role="alert" className="max-w-56 text-xs text-danger">
-          ⚠ {error}
-        </p>
-      ) : null}
-    </div>
-  );
+  return <Field id={id} label={label} unit={unit} error={error} inputMode="decimal" value={value} onChange={(e) => onChange(e.target.value)} inputClassName={`${width} py-1 text-right`} />;
 }
 
 export interface CircuitInfo {
